@@ -7,6 +7,7 @@ export default defineConfig({
   resolve: { alias: { '@/': root } },
   test: {
     include: ['tests/**/*.test.ts'],
+    globalSetup: ['tests/helpers/global-setup.ts'],
     environment: 'node',
     testTimeout: 30_000,
     hookTimeout: 120_000,

@@ -1,0 +1,92 @@
+import type { Server as HttpServer } from 'node:http';
+
+import { fromNodeHeaders } from 'better-auth/node';
+import { Server, type Socket } from 'socket.io';
+
+import type { Database } from '@/db/client';
+import type { Auth } from '@/server/auth/auth';
+import { ApiError } from '@/server/http/errors';
+import { requireTeam } from '@/server/http/guard';
+
+import {
+  teamRoom,
+  teamRoomPayload,
+  type Ack,
+  type Broadcast,
+  type ClientToServerEvents,
+  type ServerToClientEvents,
+} from './events';
+
+type SocketData = { user: { id: string; name: string; email: string } };
+export type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
+
+function failure(error: unknown) {
+  if (error instanceof ApiError) return { error: { code: error.code, message: error.message } };
+  console.error('[realtime] handler failed:', error);
+  return { error: { code: 'internal', message: 'Something went wrong on the server.' } };
+}
+
+/** Wraps a handler: validates the payload, checks access, answers the ack with ok or an error. */
+function handle<P>(
+  socket: Socket,
+  schema: { safeParse(v: unknown): { success: true; data: P } | { success: false; error: { issues: Array<{ message: string }> } } },
+  run: (payload: P) => Promise<void>,
+) {
+  return async (raw: unknown, ack?: Ack) => {
+    const reply: Ack = typeof ack === 'function' ? ack : () => {};
+    const parsed = schema.safeParse(raw);
+    if (!parsed.success) {
+      reply({ error: { code: 'invalid_input', message: parsed.error.issues[0]?.message ?? 'Invalid payload.' } });
+      return;
+    }
+    try {
+      await run(parsed.data);
+      reply({ ok: true });
+    } catch (error) {
+      reply(failure(error));
+    }
+  };
+}
+
+/** Attaches socket.io to the HTTP server: session from the cookie, rooms per team. */
+export function attachRealtime(httpServer: HttpServer, { db, auth, origin }: { db: Database; auth: Auth; origin: string }) {
+  const io: RealtimeServer = new Server(httpServer, {
+    cors: { origin, credentials: true },
+    maxHttpBufferSize: 64 * 1024,
+    serveClient: false,
+  });
+
+  io.use(async (socket, next) => {
+    try {
+      const session = await auth.api.getSession({ headers: fromNodeHeaders(socket.request.headers) });
+      if (!session) return next(new Error('unauthorized'));
+      socket.data.user = { id: session.user.id, name: session.user.name, email: session.user.email };
+      next();
+    } catch (error) {
+      next(error as Error);
+    }
+  });
+
+  io.on('connection', (socket) => {
+    socket.on(
+      'team:join',
+      handle(socket, teamRoomPayload, async ({ teamId }) => {
+        await requireTeam(db, socket.data.user.id, teamId);
+        await socket.join(teamRoom(teamId));
+      }),
+    );
+    socket.on(
+      'team:leave',
+      handle(socket, teamRoomPayload, async ({ teamId }) => {
+        await socket.leave(teamRoom(teamId));
+      }),
+    );
+  });
+
+  const broadcast: Broadcast = {
+    toTeam(teamId, event, ...args) {
+      io.to(teamRoom(teamId)).emit(event, ...args);
+    },
+  };
+  return { io, broadcast };
+}

@@ -1,0 +1,63 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+
+import { toNodeHandler } from 'better-auth/node';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+
+import type { Database } from '@/db/client';
+import type { Broadcast } from '@/realtime/events';
+import type { Auth } from '@/server/auth/auth';
+import { apiNotFound, errorHandler, requestId } from '@/server/http/handlers';
+import { requireSession } from '@/server/http/session';
+import { cyclesRouter } from '@/server/routes/cycles';
+import { publicRouter } from '@/server/routes/public';
+import { reviewsRouter } from '@/server/routes/reviews';
+import { teamsRouter } from '@/server/routes/teams';
+
+export type AppDeps = {
+  db: Database;
+  auth: Auth;
+  broadcast: Broadcast;
+  /** The exported web bundle (dist/); the API alone when absent. */
+  webDir?: string;
+};
+
+export const jsonBodyLimit = '256kb';
+
+/** Builds the Express app; `server/index.ts` listens, tests use it as it is. */
+export function createApp({ db, auth, broadcast, webDir }: AppDeps): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  // The exported web app loads its own scripts only; the default policy would block its inline boot data.
+  app.use(helmet({ contentSecurityPolicy: false, crossOriginEmbedderPolicy: false }));
+  app.use(requestId);
+
+  // better-auth reads its own body: mount it before the JSON parser.
+  app.all('/api/auth/{*any}', toNodeHandler(auth));
+
+  app.use('/api', express.json({ limit: jsonBodyLimit, strict: true }));
+  app.use('/api', publicRouter({ db }));
+  app.use('/api', requireSession(auth));
+  app.use('/api', teamsRouter({ db }));
+  app.use('/api', reviewsRouter({ db, broadcast }));
+  app.use('/api/cycles', cyclesRouter());
+  app.use('/api', apiNotFound);
+
+  if (webDir && existsSync(path.join(webDir, 'index.html'))) {
+    app.use(express.static(webDir, { index: false, maxAge: '1h', immutable: false }));
+    const indexFile = path.join(webDir, 'index.html');
+    // Deep links (/reviews/<id>) load the app; a missing file with an extension stays a 404.
+    app.get('/{*splat}', (req, res, next) => {
+      if (path.extname(req.path)) return next();
+      res.setHeader('cache-control', 'no-cache');
+      res.sendFile(indexFile);
+    });
+  }
+  app.use((req, res) => {
+    res.status(404).type('text/plain').send(`Not found: ${req.path}`);
+  });
+  app.use(errorHandler);
+  return app;
+}

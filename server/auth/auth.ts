@@ -1,0 +1,63 @@
+import { betterAuth } from 'better-auth';
+import { drizzleAdapter } from 'better-auth/adapters/drizzle';
+import { organization } from 'better-auth/plugins';
+
+import type { Database } from '@/db/client';
+import * as schema from '@/db/schema';
+import { accessControl, roles } from '@/server/contracts/roles';
+import type { Mailer } from '@/server/auth/mailer';
+
+export type AuthOptions = {
+  db: Database;
+  /** The origin the app is served from, e.g. http://127.0.0.1:8090. */
+  baseURL: string;
+  secret: string;
+  mailer: Mailer;
+};
+
+export function createAuth({ db, baseURL, secret, mailer }: AuthOptions) {
+  return betterAuth({
+    appName: 'Cyclemoot',
+    baseURL,
+    basePath: '/api/auth',
+    secret,
+    trustedOrigins: [baseURL],
+    database: drizzleAdapter(db, { provider: 'pg', schema }),
+    emailAndPassword: {
+      enabled: true,
+      minPasswordLength: 10,
+      maxPasswordLength: 128,
+      autoSignIn: true,
+    },
+    session: { expiresIn: 60 * 60 * 24 * 30, updateAge: 60 * 60 * 24 },
+    advanced: {
+      // better-auth skips its origin check under NODE_ENV=test; tests must see production behaviour.
+      disableOriginCheck: false,
+      database: { generateId: () => crypto.randomUUID() },
+    },
+    rateLimit: { enabled: false },
+    plugins: [
+      organization({
+        ac: accessControl,
+        roles,
+        creatorRole: 'owner',
+        invitationExpiresIn: 60 * 60 * 24 * 7,
+        cancelPendingInvitationsOnReInvite: true,
+        async sendInvitationEmail({ id, email, role, organization: team, inviter }) {
+          const link = `${baseURL}/invitation/${id}`;
+          await mailer.send({
+            to: email,
+            subject: `${inviter.user.name} invited you to ${team.name} on Cyclemoot`,
+            text:
+              `${inviter.user.name} (${inviter.user.email}) invited you to join the team ` +
+              `"${team.name}" on Cyclemoot as ${role}.\n\n` +
+              `Open this link to accept: ${link}\n\n` +
+              `The invitation expires in 7 days. If you did not expect it, ignore this e-mail.`,
+          });
+        },
+      }),
+    ],
+  });
+}
+
+export type Auth = ReturnType<typeof createAuth>;

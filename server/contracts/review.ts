@@ -1,0 +1,49 @@
+import { z } from 'zod';
+
+/** Shared by the reviews-list form (instant feedback) and the routes (422 with field errors). */
+export const reviewName = z
+  .string({ error: 'Name must be text.' })
+  .trim()
+  .min(3, 'Name needs at least 3 characters.')
+  .max(120, 'Name must be at most 120 characters.');
+
+export const reviewSummary = z
+  .string({ error: 'Summary must be text.' })
+  .trim()
+  .max(2000, 'Summary must be at most 2000 characters.');
+
+export const createReviewInput = z.strictObject({
+  name: reviewName,
+  summary: reviewSummary.default(''),
+});
+export type CreateReviewInput = z.input<typeof createReviewInput>;
+
+export const reviewStatus = z.enum(['active', 'archived'], { error: 'Status must be "active" or "archived".' });
+export type ReviewStatus = z.infer<typeof reviewStatus>;
+
+export const updateReviewInput = z
+  .strictObject({
+    name: reviewName.optional(),
+    summary: reviewSummary.optional(),
+    status: reviewStatus.optional(),
+  })
+  .refine((v) => v.name !== undefined || v.summary !== undefined || v.status !== undefined, {
+    message: 'Send at least one of name, summary or status.',
+  });
+export type UpdateReviewInput = z.input<typeof updateReviewInput>;
+
+export const listReviewsQuery = z.strictObject({
+  status: z.enum(['active', 'archived', 'all'], { error: 'Status must be active, archived or all.' }).default('active'),
+});
+
+export type Review = {
+  id: string;
+  teamId: string;
+  name: string;
+  summary: string;
+  status: ReviewStatus;
+  createdAt: string;
+  updatedAt: string;
+  archivedAt: string | null;
+  createdBy: { id: string; name: string } | null;
+};

@@ -1,0 +1,82 @@
+import { createServer } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import path from 'node:path';
+
+import { createDatabase } from '@/db/client';
+import type { Broadcast } from '@/realtime/events';
+import { attachRealtime } from '@/realtime/server';
+import { createApp } from '@/server/app';
+import { createAuth } from '@/server/auth/auth';
+import { createSmtpMailer } from '@/server/auth/mailer';
+
+export type ServerConfig = {
+  databaseUrl: string;
+  secret: string;
+  smtp: { host: string; port: number };
+  host?: string;
+  /** 0 picks a free port (tests). */
+  port?: number;
+  /** Public origin; defaults to http://<host>:<port>. */
+  origin?: string;
+  webDir?: string;
+};
+
+export type RunningServer = { url: string; close(): Promise<void> };
+
+/** The only place that listens: HTTP app, better-auth, socket.io and the web bundle on one port. */
+export async function startServer(config: ServerConfig): Promise<RunningServer> {
+  const host = config.host ?? '127.0.0.1';
+  const db = createDatabase(config.databaseUrl);
+  // The app needs a broadcaster before socket.io exists; forward to it once attached.
+  let target: Broadcast | undefined;
+  const broadcast: Broadcast = { toTeam: (...args) => target?.toTeam(...args) };
+
+  const httpServer = createServer();
+  await new Promise<void>((resolve, reject) => {
+    httpServer.once('error', reject);
+    httpServer.listen(config.port ?? 8090, host, () => resolve());
+  });
+  const { port } = httpServer.address() as AddressInfo;
+  const origin = config.origin ?? `http://${host}:${port}`;
+
+  const mailer = createSmtpMailer({ ...config.smtp, from: 'Cyclemoot <no-reply@cyclemoot.test>' });
+  const auth = createAuth({ db, baseURL: origin, secret: config.secret, mailer });
+  const app = createApp({ db, auth, broadcast, webDir: config.webDir });
+  httpServer.on('request', app);
+  const realtime = attachRealtime(httpServer, { db, auth, origin });
+  target = realtime.broadcast;
+
+  return {
+    url: origin,
+    async close() {
+      await new Promise<void>((resolve) => realtime.io.close(() => resolve()));
+      httpServer.closeAllConnections();
+      await db.$client.end();
+    },
+  };
+}
+
+function requireEnv(name: string): string {
+  const value = process.env[name];
+  if (!value) {
+    console.error(`Missing environment variable ${name}. Start the product with "npm start".`);
+    process.exit(1);
+  }
+  return value;
+}
+
+// Run directly (node --import tsx server/index.ts) with the environment `npm start` prepares.
+if (require.main === module) {
+  startServer({
+    databaseUrl: requireEnv('DATABASE_URL'),
+    secret: requireEnv('BETTER_AUTH_SECRET'),
+    smtp: { host: process.env.SMTP_HOST ?? '127.0.0.1', port: Number(process.env.SMTP_PORT ?? 2525) },
+    port: Number(process.env.PORT ?? 8090),
+    webDir: process.env.WEB_DIR ?? path.resolve(__dirname, '..', 'dist'),
+  })
+    .then((s) => console.log(`Cyclemoot listening at ${s.url}`))
+    .catch((error) => {
+      console.error(error);
+      process.exit(1);
+    });
+}

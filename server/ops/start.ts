@@ -1,0 +1,75 @@
+import path from 'node:path';
+
+import { createDatabase } from '@/db/client';
+import { demoPassword, demoUsers, isEmpty, seedDemo } from '@/db/seed';
+import { startServer } from '@/server/index';
+
+import { startMailFake } from './mail-fake';
+import { migrateDatabase } from './migrate';
+import { stateDir } from './paths';
+import { ensureCluster, ensureDatabase } from './postgres';
+import { authSecret } from './secrets';
+import { ensureWebBuild, webDir } from './web-build';
+
+const port = Number(process.env.PORT ?? 8090);
+const smtpPort = Number(process.env.CYCLEMOOT_SMTP_PORT ?? 2525);
+const mailWebPort = Number(process.env.CYCLEMOOT_MAIL_PORT ?? 8025);
+
+/** `npm start`: database, migrations, demo data, web bundle, mail fake, then the server. */
+async function main() {
+  const started = Date.now();
+  const cluster = await ensureCluster();
+  const databaseUrl = await ensureDatabase(cluster, 'cyclemoot');
+  await migrateDatabase(databaseUrl);
+
+  const db = createDatabase(databaseUrl, 2);
+  if (await isEmpty(db)) {
+    await seedDemo(db);
+    console.log('[seed] demo team, five members and two reviews written');
+  }
+  await db.$client.end();
+
+  ensureWebBuild();
+  const mail = await startMailFake({ smtpPort, webPort: mailWebPort, mailDir: path.join(stateDir(), 'mail') });
+  const server = await startServer({
+    databaseUrl,
+    secret: authSecret(),
+    smtp: { host: '127.0.0.1', port: mail.smtpPort },
+    port,
+    webDir,
+  });
+
+  const width = Math.max(...demoUsers.map((u) => u.email.length));
+  console.log(
+    [
+      '',
+      `Cyclemoot is up at ${server.url}   (ready in ${((Date.now() - started) / 1000).toFixed(1)} s)`,
+      `Sent e-mail (the local mail fake): ${mail.webURL}`,
+      `Database: postgres on 127.0.0.1:${cluster.port}, data in ${cluster.dataDir}`,
+      '',
+      `Demo sign-ins (password for all: ${demoPassword})`,
+      ...demoUsers.map((u) => `  ${u.email.padEnd(width)}  ${u.role}`),
+      '',
+      'Results are concept-stage estimates; detailed design and acceptance follow the applicable codes,',
+      "the machine maker's data and licensed engineering practice.",
+      'Press Ctrl+C to stop.',
+    ].join('\n'),
+  );
+
+  let stopping = false;
+  const stop = async () => {
+    if (stopping) return;
+    stopping = true;
+    console.log('\nStopping…');
+    await server.close().catch(() => {});
+    await mail.stop();
+    process.exit(0);
+  };
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+}
+
+main().catch((error: Error) => {
+  console.error(`\nCyclemoot could not start: ${error.message}`);
+  process.exit(1);
+});

@@ -1,0 +1,50 @@
+import { Router } from 'express';
+import { z } from 'zod';
+
+import type { Database } from '@/db/client';
+import type { Broadcast } from '@/realtime/events';
+import { createReviewInput, listReviewsQuery, updateReviewInput } from '@/server/contracts/review';
+import { parse } from '@/server/http/errors';
+import { requireReview, requireTeam } from '@/server/http/guard';
+import { createReview, getReview, listReviews, updateReview } from '@/server/services/reviews';
+
+const teamParams = z.object({ teamId: z.string().min(1).max(100) });
+const reviewParams = z.object({ reviewId: z.string().min(1).max(100) });
+
+export function reviewsRouter({ db, broadcast }: { db: Database; broadcast: Broadcast }): Router {
+  const router = Router();
+
+  router.get('/teams/:teamId/reviews', async (req, res) => {
+    const { teamId } = parse(teamParams, req.params);
+    const { status } = parse(listReviewsQuery, req.query);
+    await requireTeam(db, res.locals.user.id, teamId);
+    res.json(await listReviews(db, teamId, status));
+  });
+
+  router.post('/teams/:teamId/reviews', async (req, res) => {
+    const { teamId } = parse(teamParams, req.params);
+    await requireTeam(db, res.locals.user.id, teamId, { review: ['create'] });
+    const input = parse(createReviewInput, req.body);
+    const created = await createReview({ db, broadcast, actorId: res.locals.user.id }, teamId, input);
+    res.status(201).json(created);
+  });
+
+  router.get('/reviews/:reviewId', async (req, res) => {
+    const { reviewId } = parse(reviewParams, req.params);
+    const access = await requireReview(db, res.locals.user.id, reviewId);
+    res.json({ ...(await getReview(db, reviewId)), myRole: access.role });
+  });
+
+  router.patch('/reviews/:reviewId', async (req, res) => {
+    const { reviewId } = parse(reviewParams, req.params);
+    const input = parse(updateReviewInput, req.body);
+    // Renaming and archiving are separate permissions; ask for the ones this change needs.
+    const needed: Array<'update' | 'archive'> = [];
+    if (input.name !== undefined || input.summary !== undefined) needed.push('update');
+    if (input.status !== undefined) needed.push('archive');
+    await requireReview(db, res.locals.user.id, reviewId, { review: needed });
+    res.json(await updateReview({ db, broadcast, actorId: res.locals.user.id }, reviewId, input));
+  });
+
+  return router;
+}

@@ -1,0 +1,32 @@
+import { Router } from 'express';
+import { z } from 'zod';
+
+import type { Database } from '@/db/client';
+import { parse } from '@/server/http/errors';
+import { requireTeam } from '@/server/http/guard';
+import { listTeamActivity } from '@/server/services/activity';
+import { getMe, getTeamDetail } from '@/server/services/teams';
+
+const teamParams = z.object({ teamId: z.string().min(1).max(100) });
+
+export function teamsRouter({ db }: { db: Database }): Router {
+  const router = Router();
+
+  router.get('/me', async (_req, res) => {
+    res.json(await getMe(db, res.locals.user));
+  });
+
+  router.get('/teams/:teamId', async (req, res) => {
+    const { teamId } = parse(teamParams, req.params);
+    const access = await requireTeam(db, res.locals.user.id, teamId);
+    res.json(await getTeamDetail(db, teamId, access.role));
+  });
+
+  router.get('/teams/:teamId/activity', async (req, res) => {
+    const { teamId } = parse(teamParams, req.params);
+    await requireTeam(db, res.locals.user.id, teamId);
+    res.json(await listTeamActivity(db, teamId));
+  });
+
+  return router;
+}

@@ -1,0 +1,52 @@
+import { desc, eq } from 'drizzle-orm';
+
+import type { Database } from '@/db/client';
+import { activity, user } from '@/db/schema';
+import type { Activity } from '@/server/contracts/team';
+
+type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
+
+export type ActivityEntry = {
+  teamId: string;
+  reviewId?: string | null;
+  actorId: string;
+  kind: string;
+  detail?: Record<string, unknown>;
+};
+
+/** Writes one activity line; call inside the transaction of the change it records. */
+export async function recordActivity(tx: Tx | Database, entry: ActivityEntry) {
+  await tx.insert(activity).values({
+    teamId: entry.teamId,
+    reviewId: entry.reviewId ?? null,
+    actorId: entry.actorId,
+    kind: entry.kind,
+    detail: entry.detail ?? {},
+  });
+}
+
+export async function listTeamActivity(db: Database, teamId: string, limit = 200): Promise<Activity[]> {
+  const rows = await db
+    .select({
+      id: activity.id,
+      kind: activity.kind,
+      reviewId: activity.reviewId,
+      detail: activity.detail,
+      createdAt: activity.createdAt,
+      actorId: user.id,
+      actorName: user.name,
+    })
+    .from(activity)
+    .leftJoin(user, eq(user.id, activity.actorId))
+    .where(eq(activity.teamId, teamId))
+    .orderBy(desc(activity.createdAt))
+    .limit(limit);
+  return rows.map((r) => ({
+    id: r.id,
+    kind: r.kind,
+    reviewId: r.reviewId,
+    detail: r.detail,
+    createdAt: r.createdAt.toISOString(),
+    actor: r.actorId ? { id: r.actorId, name: r.actorName ?? '' } : null,
+  }));
+}

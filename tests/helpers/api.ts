@@ -1,0 +1,55 @@
+import type { Express } from 'express';
+import supertest from 'supertest';
+import { inject } from 'vitest';
+
+import { createDatabase, type Database } from '@/db/client';
+import type { Broadcast } from '@/realtime/events';
+import { createApp } from '@/server/app';
+import { createAuth, type Auth } from '@/server/auth/auth';
+import { createSmtpMailer } from '@/server/auth/mailer';
+
+import { testSecret, uniqueEmail } from './test-server';
+
+/** The origin the test app believes it is served from; clients send it as `Origin`. */
+export const testOrigin = 'http://127.0.0.1:3999';
+
+export type Sent = { event: string; teamId: string; payload: unknown };
+
+/** `createApp()` on the test database, without listening; broadcasts are recorded. */
+export function createTestApp() {
+  const db = createDatabase(inject('databaseUrl'), 4);
+  const mailer = createSmtpMailer({ host: '127.0.0.1', port: inject('smtpPort'), from: 'test@cyclemoot.test' });
+  const auth = createAuth({ db, baseURL: testOrigin, secret: testSecret, mailer });
+  const sent: Sent[] = [];
+  const broadcast: Broadcast = { toTeam: (teamId, event, payload) => void sent.push({ teamId, event, payload }) };
+  const app = createApp({ db, auth, broadcast });
+  return { app, db, auth, sent, close: () => db.$client.end() };
+}
+
+export type TestUser = { agent: ReturnType<typeof supertest.agent>; id: string; email: string; name: string };
+
+/** Signs a new user up through the real auth routes; the agent keeps the session cookie. */
+export async function signUp(app: Express, name = 'Test User'): Promise<TestUser> {
+  const email = uniqueEmail(name.split(' ')[0].toLowerCase());
+  const agent = supertest.agent(app).set('Origin', testOrigin);
+  const res = await agent.post('/api/auth/sign-up/email').send({ name, email, password: 'correct-horse-battery' });
+  if (res.status !== 200) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return { agent, id: res.body.user.id, email, name };
+}
+
+/** A team created by `owner` through better-auth, with `others` added in the given roles. */
+export async function createTeam(
+  ctx: { auth: Auth; db: Database },
+  owner: TestUser,
+  others: Array<{ user: TestUser; role: string }> = [],
+) {
+  const res = await owner.agent
+    .post('/api/auth/organization/create')
+    .send({ name: 'Test team', slug: `test-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}` });
+  if (res.status !== 200) throw new Error(`team create failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const teamId = res.body.id as string;
+  for (const { user, role } of others) {
+    await ctx.auth.api.addMember({ body: { userId: user.id, role: role as never, organizationId: teamId } });
+  }
+  return teamId;
+}

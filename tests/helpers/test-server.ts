@@ -1,0 +1,66 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+
+import { chromium, type BrowserContext } from 'playwright-core';
+import { inject } from 'vitest';
+
+import { startServer } from '@/server/index';
+import { chromiumPath } from '@/server/ops/chromium';
+import { webDir } from '@/server/ops/web-build';
+
+export const testSecret = 'test-secret-for-sessions-0123456789abcdef';
+
+/** A real server on a free loopback port: test database, mail fake, the built web app. */
+export async function startTestServer() {
+  const server = await startServer({
+    databaseUrl: inject('databaseUrl'),
+    secret: testSecret,
+    smtp: { host: '127.0.0.1', port: inject('smtpPort') },
+    port: 0,
+    webDir,
+  });
+  return { baseURL: server.url, mailboxURL: inject('mailboxURL'), stop: () => server.close() };
+}
+
+export type Mail = { id: string; subject: string; to: Array<{ address: string }>; text: string; html?: string };
+
+/** Mails the fake received for `address`, newest last. */
+export async function mailsTo(address: string): Promise<Mail[]> {
+  const res = await fetch(`${inject('mailboxURL')}/api/email`);
+  const all = (await res.json()) as Mail[];
+  return all.filter((m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase()));
+}
+
+/** Waits until a mail for `address` arrives (SMTP delivery is asynchronous). */
+export async function waitForMail(address: string, timeoutMs = 10_000): Promise<Mail> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const mails = await mailsTo(address);
+    if (mails.length) return mails[mails.length - 1];
+    if (Date.now() > deadline) throw new Error(`No mail for ${address} within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 100));
+  }
+}
+
+/** Debian's Chromium through playwright-core, headless, with its own throwaway profile. */
+export async function launchBrowser(viewport = { width: 390, height: 844 }): Promise<BrowserContext & { dispose(): Promise<void> }> {
+  const profile = mkdtempSync(path.join(tmpdir(), 'cyclemoot-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: chromiumPath,
+    viewport,
+    args: [
+      '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+      '--disable-background-networking', '--disable-component-update', '--disable-sync',
+    ],
+  });
+  return Object.assign(context, {
+    async dispose() {
+      await context.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
+  });
+}
+
+/** A unique address per test so runs never collide. */
+export const uniqueEmail = (who: string) => `${who}.${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@test.example`;
