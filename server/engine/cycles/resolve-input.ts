@@ -1,0 +1,246 @@
+import { EngineInputError } from '../errors';
+import { ISA_MAX_ELEVATION_M, ISA_MIN_ELEVATION_M, isaPressureKPa } from '../properties/isa-atmosphere';
+import { POLYNOMIAL_MAX_K, POLYNOMIAL_MIN_K } from '../properties/nasa-species';
+import type { CycleInput, WorkingFluid } from './types';
+
+export const MAX_STAGES = 100;
+
+/** The input with every default filled in and every value checked. */
+export interface ResolvedInput {
+  readonly ambientTemperatureK: number;
+  readonly ambientPressureKPa: number;
+  readonly relativeHumidity: number;
+  readonly fluid: WorkingFluid;
+  readonly fuel: { readonly hydrogenVolumeFraction: number; readonly temperatureK: number } | null;
+  readonly compressorStages: number;
+  readonly pressureRatio: number;
+  readonly compressorEfficiency: number;
+  readonly intercoolTemperatureK: number;
+  readonly intercoolerPressureLoss: number;
+  readonly regenerator: { readonly effectiveness: number; readonly airSidePressureLoss: number; readonly gasSidePressureLoss: number } | null;
+  readonly combustorPressureLoss: number;
+  readonly turbineStages: number;
+  readonly turbineInletTemperatureK: number;
+  readonly turbineEfficiency: number;
+  readonly reheatTemperatureK: number;
+  readonly reheaterPressureLoss: number;
+  readonly generatorEfficiency: number;
+  readonly netPowerKW: number;
+  readonly maxTurbineInletTemperatureK: number | null;
+  readonly exhaustTemperatureMinK: number | null;
+  readonly exhaustTemperatureMaxK: number | null;
+}
+
+function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+function section(parent: Record<string, unknown>, key: string, field: string): Record<string, unknown> {
+  const value = parent[key];
+  if (!isRecord(value)) throw new EngineInputError(field, 'is missing; an object is expected.');
+  return value;
+}
+
+function finite(parent: Record<string, unknown>, key: string, field: string, fallback?: number): number {
+  const value = parent[key];
+  if (value === undefined && fallback !== undefined) return fallback;
+  if (typeof value !== 'number') {
+    throw new EngineInputError(field, value === undefined ? 'is missing; a number is expected.' : 'must be a number.');
+  }
+  if (!Number.isFinite(value)) throw new EngineInputError(field, 'must be a finite number.');
+  return value;
+}
+
+function fraction(parent: Record<string, unknown>, key: string, field: string, what: string, fallback?: number): number {
+  const value = finite(parent, key, field, fallback);
+  if (!(value >= 0 && value <= 1)) throw new EngineInputError(field, `${what} must be between 0 and 1; got ${value}.`);
+  return value;
+}
+
+function efficiency(parent: Record<string, unknown>, key: string, field: string, what: string): number {
+  const value = finite(parent, key, field);
+  if (!(value > 0 && value <= 1)) {
+    throw new EngineInputError(field, `${what} must be above 0 and at most 1; got ${value}.`);
+  }
+  return value;
+}
+
+function pressureLoss(parent: Record<string, unknown>, key: string, field: string, what: string, fallback?: number): number {
+  const value = finite(parent, key, field, fallback);
+  if (!(value >= 0 && value < 1)) {
+    throw new EngineInputError(field, `${what} must be a fraction from 0 up to (not including) 1; got ${value}.`);
+  }
+  return value;
+}
+
+function stageCount(parent: Record<string, unknown>, key: string, field: string, what: string): number {
+  const value = finite(parent, key, field);
+  if (!(Number.isInteger(value) && value >= 1 && value <= MAX_STAGES)) {
+    throw new EngineInputError(field, `${what} must be a whole number from 1 to ${MAX_STAGES}; got ${value}.`);
+  }
+  return value;
+}
+
+export function temperatureInRange(value: number, field: string, what: string): number {
+  if (!(value >= POLYNOMIAL_MIN_K && value <= POLYNOMIAL_MAX_K)) {
+    throw new EngineInputError(
+      field,
+      `${what} must be within the range of the property data, ${POLYNOMIAL_MIN_K}–${POLYNOMIAL_MAX_K} K; got ${value} K.`,
+    );
+  }
+  return value;
+}
+
+function optionalLimit(parent: Record<string, unknown> | null, key: string, field: string): number | null {
+  if (!parent || parent[key] === undefined || parent[key] === null) return null;
+  const value = finite(parent, key, field);
+  if (!(value > 0)) throw new EngineInputError(field, `must be a positive temperature in K; got ${value}.`);
+  return value;
+}
+
+/**
+ * Checks an input and fills its defaults. Throws EngineInputError naming the first
+ * field that is missing, not a finite number, or physically impossible.
+ */
+export function resolveInput(input: CycleInput): ResolvedInput {
+  const root: unknown = input;
+  if (!isRecord(root)) throw new EngineInputError('(body)', 'The cycle input must be an object.');
+
+  const ambient = section(root, 'ambient', 'ambient');
+  const ambientTemperatureK = temperatureInRange(
+    finite(ambient, 'temperatureK', 'ambient.temperatureK'),
+    'ambient.temperatureK',
+    'The ambient temperature',
+  );
+  const hasPressure = ambient.pressureKPa !== undefined && ambient.pressureKPa !== null;
+  const hasElevation = ambient.elevationM !== undefined && ambient.elevationM !== null;
+  if (hasPressure && hasElevation) {
+    throw new EngineInputError('ambient.pressureKPa', 'Give either the ambient pressure or the elevation, not both.');
+  }
+  let ambientPressureKPa: number;
+  if (hasPressure) {
+    ambientPressureKPa = finite(ambient, 'pressureKPa', 'ambient.pressureKPa');
+    if (!(ambientPressureKPa > 0)) {
+      throw new EngineInputError('ambient.pressureKPa', `The ambient pressure must be above 0 kPa; got ${ambientPressureKPa}.`);
+    }
+  } else if (hasElevation) {
+    const elevationM = finite(ambient, 'elevationM', 'ambient.elevationM');
+    if (!(elevationM >= ISA_MIN_ELEVATION_M && elevationM <= ISA_MAX_ELEVATION_M)) {
+      throw new EngineInputError(
+        'ambient.elevationM',
+        `The elevation must be from ${ISA_MIN_ELEVATION_M} m to ${ISA_MAX_ELEVATION_M} m (the standard atmosphere used); got ${elevationM}.`,
+      );
+    }
+    ambientPressureKPa = isaPressureKPa(elevationM);
+  } else {
+    throw new EngineInputError('ambient.pressureKPa', 'Give the ambient pressure or the elevation.');
+  }
+  const relativeHumidity = fraction(ambient, 'relativeHumidity', 'ambient.relativeHumidity', 'The relative humidity');
+
+  const fluid = root.fluid;
+  if (fluid !== 'variable-cp-air' && fluid !== 'combustion' && fluid !== 'constant-cp-air') {
+    throw new EngineInputError('fluid', 'The working fluid must be "variable-cp-air", "combustion" or "constant-cp-air".');
+  }
+
+  let fuel: ResolvedInput['fuel'] = null;
+  if (root.fuel !== undefined && root.fuel !== null) {
+    const f = section(root, 'fuel', 'fuel');
+    fuel = {
+      hydrogenVolumeFraction: fraction(f, 'hydrogenVolumeFraction', 'fuel.hydrogenVolumeFraction', 'The hydrogen volume fraction'),
+      temperatureK: temperatureInRange(finite(f, 'temperatureK', 'fuel.temperatureK'), 'fuel.temperatureK', 'The fuel temperature'),
+    };
+  } else if (fluid === 'combustion') {
+    throw new EngineInputError('fuel', 'The combustion working fluid needs a fuel.');
+  }
+
+  const compressor = section(root, 'compressor', 'compressor');
+  const compressorStages = stageCount(compressor, 'stages', 'compressor.stages', 'The number of compressor stages');
+  const pressureRatio = finite(compressor, 'pressureRatio', 'compressor.pressureRatio');
+  if (!(pressureRatio > 1)) {
+    throw new EngineInputError('compressor.pressureRatio', `The pressure ratio must be above 1; got ${pressureRatio}.`);
+  }
+  const compressorEfficiency = efficiency(
+    compressor,
+    'isentropicEfficiency',
+    'compressor.isentropicEfficiency',
+    'The compressor isentropic efficiency',
+  );
+  const intercoolTemperatureK = temperatureInRange(
+    finite(compressor, 'intercoolTemperatureK', 'compressor.intercoolTemperatureK', ambientTemperatureK),
+    'compressor.intercoolTemperatureK',
+    'The intercooling temperature',
+  );
+  const intercoolerPressureLoss = pressureLoss(
+    compressor,
+    'intercoolerPressureLoss',
+    'compressor.intercoolerPressureLoss',
+    'The intercooler pressure loss',
+    0,
+  );
+
+  let regenerator: ResolvedInput['regenerator'] = null;
+  if (root.regenerator !== undefined && root.regenerator !== null) {
+    const r = section(root, 'regenerator', 'regenerator');
+    regenerator = {
+      effectiveness: fraction(r, 'effectiveness', 'regenerator.effectiveness', 'The regenerator effectiveness'),
+      airSidePressureLoss: pressureLoss(r, 'airSidePressureLoss', 'regenerator.airSidePressureLoss', 'The regenerator air-side pressure loss'),
+      gasSidePressureLoss: pressureLoss(r, 'gasSidePressureLoss', 'regenerator.gasSidePressureLoss', 'The regenerator gas-side pressure loss'),
+    };
+  }
+
+  const combustorPressureLoss = pressureLoss(root, 'combustorPressureLoss', 'combustorPressureLoss', 'The combustor pressure loss');
+
+  const turbine = section(root, 'turbine', 'turbine');
+  const turbineStages = stageCount(turbine, 'stages', 'turbine.stages', 'The number of turbine stages');
+  const turbineInletTemperatureK = temperatureInRange(
+    finite(turbine, 'inletTemperatureK', 'turbine.inletTemperatureK'),
+    'turbine.inletTemperatureK',
+    'The turbine inlet temperature',
+  );
+  const turbineEfficiency = efficiency(turbine, 'isentropicEfficiency', 'turbine.isentropicEfficiency', 'The turbine isentropic efficiency');
+  const reheatTemperatureK = temperatureInRange(
+    finite(turbine, 'reheatTemperatureK', 'turbine.reheatTemperatureK', turbineInletTemperatureK),
+    'turbine.reheatTemperatureK',
+    'The reheat temperature',
+  );
+  const reheaterPressureLoss = pressureLoss(turbine, 'reheaterPressureLoss', 'turbine.reheaterPressureLoss', 'The reheater pressure loss', 0);
+
+  const generatorEfficiency = efficiency(root, 'generatorEfficiency', 'generatorEfficiency', 'The generator efficiency');
+  const netPowerKW = finite(root, 'netPowerKW', 'netPowerKW');
+  if (!(netPowerKW > 0)) throw new EngineInputError('netPowerKW', `The required net power must be above 0 kW; got ${netPowerKW}.`);
+
+  const limits = isRecord(root.limits) ? root.limits : null;
+  if (root.limits !== undefined && root.limits !== null && !limits) {
+    throw new EngineInputError('limits', 'must be an object.');
+  }
+  const exhaustTemperatureMinK = optionalLimit(limits, 'exhaustTemperatureMinK', 'limits.exhaustTemperatureMinK');
+  const exhaustTemperatureMaxK = optionalLimit(limits, 'exhaustTemperatureMaxK', 'limits.exhaustTemperatureMaxK');
+  if (exhaustTemperatureMinK !== null && exhaustTemperatureMaxK !== null && exhaustTemperatureMinK > exhaustTemperatureMaxK) {
+    throw new EngineInputError('limits.exhaustTemperatureMaxK', 'The top of the exhaust temperature window must not be below its bottom.');
+  }
+
+  return {
+    ambientTemperatureK,
+    ambientPressureKPa,
+    relativeHumidity,
+    fluid,
+    fuel,
+    compressorStages,
+    pressureRatio,
+    compressorEfficiency,
+    intercoolTemperatureK,
+    intercoolerPressureLoss,
+    regenerator,
+    combustorPressureLoss,
+    turbineStages,
+    turbineInletTemperatureK,
+    turbineEfficiency,
+    reheatTemperatureK,
+    reheaterPressureLoss,
+    generatorEfficiency,
+    netPowerKW,
+    maxTurbineInletTemperatureK: optionalLimit(limits, 'maxTurbineInletTemperatureK', 'limits.maxTurbineInletTemperatureK'),
+    exhaustTemperatureMinK,
+    exhaustTemperatureMaxK,
+  };
+}

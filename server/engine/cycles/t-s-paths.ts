@@ -1,0 +1,92 @@
+import type { FlowState } from '../processes/flow-state';
+import type { GasModel } from '../properties/gas-model';
+import type { PathKind, ProcessPath } from './types';
+
+/**
+ * Path of a non-ideal compression or expansion, drawn as the process of constant
+ * polytropic efficiency through both end states. For an ideal gas on that path
+ * ds = (1 − η_p) cp dT / T (compression; 1 − 1/η_p for expansion), hence
+ *   s(T) = s_a + c [s°(T) − s°(T_a)],   c = (s_b − s_a) / [s°(T_b) − s°(T_a)],
+ * which passes exactly through a and b with cp varying along it. Temperatures evenly spaced.
+ */
+export function polytropicPath(
+  gas: GasModel,
+  a: FlowState,
+  b: FlowState,
+  points: number,
+  kind: PathKind,
+  from: number,
+  to: number,
+): ProcessPath {
+  const temperatureK: number[] = new Array(points);
+  const entropyKJPerKgK: number[] = new Array(points);
+  const s0a = gas.standardEntropyKJPerKgK(a.temperatureK);
+  const span = gas.standardEntropyKJPerKgK(b.temperatureK) - s0a;
+  const c = span !== 0 ? (b.entropyKJPerKgK - a.entropyKJPerKgK) / span : 0;
+  const last = points - 1;
+  for (let j = 0; j <= last; j++) {
+    const t = a.temperatureK + ((b.temperatureK - a.temperatureK) * j) / last;
+    temperatureK[j] = t;
+    entropyKJPerKgK[j] = a.entropyKJPerKgK + c * (gas.standardEntropyKJPerKgK(t) - s0a);
+  }
+  entropyKJPerKgK[last] = b.entropyKJPerKgK;
+  return { kind, from, to, temperatureK, entropyKJPerKgK };
+}
+
+/**
+ * Path of heating or cooling of one gas: its isobar, with the pressure falling linearly
+ * with temperature from inlet to outlet where the part has a pressure loss.
+ */
+export function isobarPath(
+  gas: GasModel,
+  a: FlowState,
+  b: FlowState,
+  points: number,
+  kind: PathKind,
+  from: number,
+  to: number,
+): ProcessPath {
+  const temperatureK: number[] = new Array(points);
+  const entropyKJPerKgK: number[] = new Array(points);
+  const last = points - 1;
+  for (let j = 0; j <= last; j++) {
+    const fraction = j / last;
+    const t = a.temperatureK + (b.temperatureK - a.temperatureK) * fraction;
+    temperatureK[j] = t;
+    entropyKJPerKgK[j] = gas.entropyKJPerKgK(t, a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction);
+  }
+  entropyKJPerKgK[0] = a.entropyKJPerKgK;
+  entropyKJPerKgK[last] = b.entropyKJPerKgK;
+  return { kind, from, to, temperatureK, entropyKJPerKgK };
+}
+
+/**
+ * Path of heating or cooling across which the composition changes (a burner, or the
+ * exhaust returning to the ambient air): the isobar of the outlet gas, shifted at the
+ * start by the entropy the composition change carries and easing that shift to zero at
+ * the outlet. A drawing aid: both ends are the exact states.
+ */
+export function changingCompositionPath(
+  outletGas: GasModel,
+  a: FlowState,
+  b: FlowState,
+  points: number,
+  kind: PathKind,
+  from: number,
+  to: number,
+): ProcessPath {
+  const temperatureK: number[] = new Array(points);
+  const entropyKJPerKgK: number[] = new Array(points);
+  const shift = a.entropyKJPerKgK - outletGas.entropyKJPerKgK(a.temperatureK, a.pressureKPa);
+  const last = points - 1;
+  for (let j = 0; j <= last; j++) {
+    const fraction = j / last;
+    const t = a.temperatureK + (b.temperatureK - a.temperatureK) * fraction;
+    const p = a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction;
+    temperatureK[j] = t;
+    entropyKJPerKgK[j] = outletGas.entropyKJPerKgK(t, p) + (1 - fraction) * shift;
+  }
+  entropyKJPerKgK[0] = a.entropyKJPerKgK;
+  entropyKJPerKgK[last] = b.entropyKJPerKgK;
+  return { kind, from, to, temperatureK, entropyKJPerKgK };
+}

@@ -1,0 +1,39 @@
+/**
+ * Cyclemoot cycle engine: gas-turbine cycles with variable specific heats.
+ * Pure and synchronous; SI units (K, kPa, kJ/kg, kJ/(kg·K), kg/s, kW). See README.md.
+ */
+import { evaluateStagedCycle } from './cycles/staged-cycle';
+import { type SweepInput, type SweepResult, sweepStagedCycle } from './cycles/sweep';
+import type { CycleInput, CycleResult, EvaluateOptions } from './cycles/types';
+
+export { EngineInputError } from './errors';
+export type {
+  CycleInput,
+  CycleResult,
+  CycleWarning,
+  EvaluateOptions,
+  PathKind,
+  ProcessPath,
+  StatePoint,
+  WorkingFluid,
+} from './cycles/types';
+export { MAX_SWEEP_POINTS, SWEEP_PARAMETERS } from './cycles/sweep';
+export type { SweepFigures, SweepInput, SweepOptimum, SweepParameter, SweepPoint, SweepResult } from './cycles/sweep';
+export { MAX_STAGES } from './cycles/resolve-input';
+
+/**
+ * Evaluates one cycle. Results per kg of compressor inlet air, states in flow order, T-s
+ * paths unless `options.paths` is false. Throws EngineInputError (with the input `field`)
+ * on input that is missing, not finite, or physically impossible.
+ */
+export function evaluateCycle(input: CycleInput, options?: EvaluateOptions): CycleResult {
+  return evaluateStagedCycle(input, options);
+}
+
+/**
+ * Varies one numeric input over a range (samples without T-s paths) and returns the
+ * maxima of net work and of thermal efficiency, refined between samples by Brent's method.
+ */
+export function sweepCycle(input: SweepInput): SweepResult {
+  return sweepStagedCycle(input);
+}
