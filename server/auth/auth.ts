@@ -33,7 +33,8 @@ export function createAuth({ db, baseURL, secret, mailer }: AuthOptions) {
     advanced: {
       // better-auth skips its origin check under NODE_ENV=test; tests must see production behaviour.
       disableOriginCheck: false,
-      database: { generateId: () => crypto.randomUUID() },
+      // Random UUIDs: invitation ids are then unguessable, so the e-mailed link itself proves the address.
+      database: { generateId: 'uuid' },
     },
     rateLimit: { enabled: false },
     plugins: [
