@@ -36,7 +36,8 @@ export function createAuth({ db, baseURL, secret, mailer }: AuthOptions) {
       // Random UUIDs: invitation ids are then unguessable, so the e-mailed link itself proves the address.
       database: { generateId: 'uuid' },
     },
-    rateLimit: { enabled: false },
+    // Throttles repeated sign-in attempts per address; the test suite signs up many users from one address.
+    rateLimit: { enabled: process.env.VITEST === undefined, window: 60, max: 100 },
     plugins: [
       organization({
         ac: accessControl,
