@@ -1,0 +1,5 @@
+import { ActivityScreen } from '@/components/screens/activity/activity-screen';
+
+export default function ActivityRoute() {
+  return <ActivityScreen />;
+}

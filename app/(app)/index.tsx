@@ -1,0 +1,5 @@
+import { ReviewsScreen } from '@/components/screens/reviews/reviews-screen';
+
+export default function ReviewsRoute() {
+  return <ReviewsScreen />;
+}

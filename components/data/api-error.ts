@@ -1,0 +1,75 @@
+import type { ErrorEnvelope } from '@/server/contracts/errors';
+
+/**
+ * The one error type of the client. The API's envelope, better-auth's `{ code, message }`
+ * and network failures all become an ApiError, so screens present them the same way.
+ */
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly field?: string;
+  readonly fieldErrors: Record<string, string[]>;
+  readonly requestId?: string;
+
+  constructor(init: { status: number; code: string; message: string; field?: string; fieldErrors?: Record<string, string[]>; requestId?: string }) {
+    super(init.message);
+    this.name = 'ApiError';
+    this.status = init.status;
+    this.code = init.code;
+    this.field = init.field;
+    this.fieldErrors = init.fieldErrors ?? {};
+    this.requestId = init.requestId;
+  }
+
+  /** First message for a form field, if the server named one. */
+  fieldError(field: string): string | undefined {
+    return this.fieldErrors[field]?.[0] ?? (this.field === field ? this.message : undefined);
+  }
+
+  get isUnauthenticated() {
+    return this.status === 401;
+  }
+}
+
+export function isApiError(error: unknown): error is ApiError {
+  return error instanceof ApiError;
+}
+
+/** Builds an ApiError from a failed response body (our envelope, or anything else). */
+export function apiErrorFromBody(status: number, body: unknown): ApiError {
+  const envelope = body as Partial<ErrorEnvelope> | null;
+  if (envelope && typeof envelope === 'object' && envelope.error && typeof envelope.error === 'object') {
+    const e = envelope.error;
+    return new ApiError({ status, code: e.code ?? 'error', message: e.message ?? defaultMessage(status), field: e.field, fieldErrors: e.fieldErrors, requestId: e.requestId });
+  }
+  return new ApiError({ status, code: status === 0 ? 'network' : 'http_' + status, message: defaultMessage(status) });
+}
+
+/** better-auth's client answers `{ data, error }` with `error = { code?, message?, status }`. */
+export function apiErrorFromAuth(error: { code?: string; message?: string; status?: number; statusText?: string }, field?: string): ApiError {
+  const status = error.status ?? 400;
+  const message = error.message || error.statusText || defaultMessage(status);
+  return new ApiError({ status, code: (error.code ?? 'auth_error').toLowerCase(), message: sentence(message), field });
+}
+
+export function networkError(): ApiError {
+  return new ApiError({ status: 0, code: 'network', message: 'Cannot reach the Cyclemoot server. Check your connection and try again.' });
+}
+
+function sentence(text: string): string {
+  const t = text.trim();
+  if (!t) return t;
+  const first = t[0]!.toUpperCase() + t.slice(1);
+  return /[.!?]$/.test(first) ? first : first + '.';
+}
+
+function defaultMessage(status: number): string {
+  if (status === 0) return 'Cannot reach the Cyclemoot server. Check your connection and try again.';
+  if (status === 401) return 'Your session has ended. Sign in again.';
+  if (status === 403) return 'Your role in this team does not allow this.';
+  if (status === 404) return 'This was not found, or you are not a member of its team.';
+  if (status === 409) return 'This conflicts with something that already exists.';
+  if (status === 422) return 'Some fields need attention.';
+  if (status >= 500) return 'Something went wrong on the server. Try again in a moment.';
+  return 'The request could not be completed.';
+}

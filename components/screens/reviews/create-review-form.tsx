@@ -1,0 +1,91 @@
+import { StyleSheet, View } from 'react-native';
+
+import { isApiError } from '@/components/data/api-error';
+import { useCreateReviewMutation } from '@/components/data/reviews';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Field } from '@/components/ui/field';
+import { useMessage } from '@/components/ui/message';
+import { messageFor } from '@/components/ui/message-for';
+import { Heading, Text } from '@/components/ui/text';
+import { space } from '@/components/ui/tokens';
+import { useField } from '@/components/ui/use-field';
+import { createReviewInput } from '@/server/contracts/review';
+
+/** Name and summary, checked with the server's own schema as you type; a taken name shows at the name. */
+export function CreateReviewForm({ teamId, onDone }: { teamId: string; onDone: () => void }) {
+  const name = useField(createReviewInput.shape.name);
+  const summary = useField(createReviewInput.shape.summary);
+  const create = useCreateReviewMutation(teamId);
+  const message = useMessage();
+
+  const submit = () => {
+    const ok = [name.validate(), summary.validate()].every(Boolean);
+    if (!ok) return;
+    create.mutate(
+      { name: name.value.trim(), summary: summary.value.trim() },
+      {
+        onSuccess: (review) => {
+          message.show(`Review “${review.name}” created.`);
+          name.reset();
+          summary.reset();
+          onDone();
+        },
+        onError: (error) => {
+          if (!isApiError(error)) return;
+          const nameError = error.fieldError('name') ?? (error.code === 'conflict' ? error.message : undefined);
+          if (nameError) name.setServerError(nameError);
+          const summaryError = error.fieldError('summary');
+          if (summaryError) summary.setServerError(summaryError);
+        },
+      },
+    );
+  };
+
+  const handled = isApiError(create.error) && (create.error.fieldError('name') || create.error.fieldError('summary') || create.error.code === 'conflict');
+  const formError = create.error && !handled ? messageFor(create.error) : null;
+
+  return (
+    <Card style={styles.card} testID="create-review-form">
+      <Heading level={2}>New review</Heading>
+      <Text size="small" tone="soft">
+        One Review is one concept-selection effort: its Design basis, its Candidates and the Decision record.
+      </Text>
+      <Field
+        label="Review name"
+        placeholder="e.g. Unit 3 peaking — cycle choice"
+        value={name.value}
+        onChangeText={name.setValue}
+        error={name.error}
+        maxLength={140}
+        autoFocus
+        onSubmitEditing={submit}
+        testID="review-name-input"
+      />
+      <Field
+        label="Summary (optional)"
+        placeholder="What must this Review decide, and by when?"
+        value={summary.value}
+        onChangeText={summary.setValue}
+        error={summary.error}
+        multiline
+        numberOfLines={3}
+        testID="review-summary-input"
+      />
+      {formError ? (
+        <Text size="small" tone="danger" role="alert" testID="create-review-error">
+          {formError}
+        </Text>
+      ) : null}
+      <View style={styles.actions}>
+        <Button label="Cancel" variant="quiet" onPress={onDone} testID="create-review-cancel" />
+        <Button label="Create review" busy={create.isPending} onPress={submit} testID="create-review-button" />
+      </View>
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  card: { gap: space[2] },
+  actions: { flexDirection: 'row', justifyContent: 'flex-end', gap: space[1] },
+});

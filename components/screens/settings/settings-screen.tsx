@@ -1,0 +1,78 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useRouter } from 'expo-router';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { authClient } from '@/components/auth/auth-client';
+import { useMeQuery } from '@/components/data/me';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Choice } from '@/components/ui/field';
+import { temperature, unitSystemLabels, type UnitSystem } from '@/components/ui/format';
+import { useMessage } from '@/components/ui/message';
+import { Screen } from '@/components/ui/screen';
+import { Heading, Quantity, Text } from '@/components/ui/text';
+import { space } from '@/components/ui/tokens';
+import { useUnitSystem } from '@/components/ui/unit-system';
+import { closeRealtimeSocket } from '@/realtime/client';
+
+const unitOptions = (['si', 'us'] as const).map((value) => ({ value, label: unitSystemLabels[value] }));
+
+/** Account, display units, sign-out. */
+export function SettingsScreen() {
+  const me = useMeQuery();
+  const { system, setSystem } = useUnitSystem();
+  const qc = useQueryClient();
+  const router = useRouter();
+  const message = useMessage();
+  const [signingOut, setSigningOut] = useState(false);
+  const iso = temperature(288.15, system);
+
+  const signOut = async () => {
+    setSigningOut(true);
+    const { error } = await authClient.signOut();
+    setSigningOut(false);
+    if (error) {
+      message.show(error.message ?? 'Could not sign out. Try again.');
+      return;
+    }
+    closeRealtimeSocket();
+    qc.clear();
+    router.replace('/sign-in');
+  };
+
+  return (
+    <Screen title="Settings" testID="settings-screen">
+      <Card style={styles.card}>
+        <Heading level={2}>Account</Heading>
+        <View>
+          <Text weight="medium" testID="settings-name">
+            {me.data?.user.name ?? '—'}
+          </Text>
+          <Text tone="soft" testID="settings-email">
+            {me.data?.user.email ?? ''}
+          </Text>
+        </View>
+      </Card>
+      <Card style={styles.card}>
+        <Heading level={2}>Units</Heading>
+        <Choice<UnitSystem> label="Unit system" options={unitOptions} value={system} onChange={setSystem} testID="unit-system" />
+        <Text size="small" tone="muted">
+          Kept on this device for your account. Example: the ISO rating ambient reads{' '}
+        </Text>
+        <Quantity value={iso.value} unit={iso.unit} testID="unit-example" />
+      </Card>
+      <Card style={styles.card}>
+        <Heading level={2}>Session</Heading>
+        <View style={styles.actions}>
+          <Button label="Sign out" variant="secondary" busy={signingOut} onPress={() => void signOut()} testID="sign-out-button" />
+        </View>
+      </Card>
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  card: { gap: space[2] },
+  actions: { flexDirection: 'row' },
+});

@@ -1,0 +1,88 @@
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { isApiError } from '@/components/data/api-error';
+import { useInviteMemberMutation } from '@/components/data/teams';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Choice } from '@/components/ui/field';
+import { Field } from '@/components/ui/field';
+import { useMessage } from '@/components/ui/message';
+import { messageFor } from '@/components/ui/message-for';
+import { Heading, Text } from '@/components/ui/text';
+import { space } from '@/components/ui/tokens';
+import { useField } from '@/components/ui/use-field';
+import { roleLabels, teamRoles, type TeamRole } from '@/server/contracts/roles';
+import { inviteInput } from '@/server/contracts/team';
+
+const roleOptions = teamRoles.map((r) => ({ value: r, label: roleLabels[r] }));
+
+const roleHints: Record<TeamRole, string> = {
+  owner: 'Manages the Team, its members and invitations, and everything a Lead does.',
+  lead: 'Runs Reviews: creates, renames and archives them, and signs the Decision record.',
+  engineer: 'Creates and tunes Candidates, answers comments.',
+  reviewer: 'Reads, comments, votes and scores.',
+  observer: 'Reads everything, changes nothing.',
+};
+
+/** Invite by e-mail with a role; the same schema as the server checks the address as you type. */
+export function InviteForm({ teamId }: { teamId: string }) {
+  const email = useField(inviteInput.shape.email);
+  const [role, setRole] = useState<TeamRole>('engineer');
+  const invite = useInviteMemberMutation(teamId);
+  const message = useMessage();
+
+  const submit = () => {
+    if (!email.validate()) return;
+    const address = email.value.trim().toLowerCase();
+    invite.mutate(
+      { email: address, role },
+      {
+        onSuccess: () => {
+          message.show(`Invitation sent to ${address} as ${roleLabels[role]}.`);
+          email.reset();
+        },
+        onError: (error) => {
+          if (isApiError(error) && error.field === 'email') email.setServerError(error.message);
+        },
+      },
+    );
+  };
+  const formError = invite.error && !(isApiError(invite.error) && invite.error.field === 'email') ? messageFor(invite.error) : null;
+
+  return (
+    <Card style={styles.card} testID="invite-form">
+      <Heading level={2}>Invite someone</Heading>
+      <Field
+        label="E-mail"
+        placeholder="name@company.example"
+        value={email.value}
+        onChangeText={email.setValue}
+        error={email.error}
+        keyboardType="email-address"
+        autoCapitalize="none"
+        autoComplete="off"
+        inputMode="email"
+        onSubmitEditing={submit}
+        testID="invite-email-input"
+      />
+      <Choice label="Role" options={roleOptions} value={role} onChange={setRole} testID="invite-role" />
+      <Text size="small" tone="muted">
+        {roleHints[role]}
+      </Text>
+      {formError ? (
+        <Text size="small" tone="danger" role="alert" testID="invite-error">
+          {formError}
+        </Text>
+      ) : null}
+      <View style={styles.actions}>
+        <Button label="Send invitation" busy={invite.isPending} onPress={submit} testID="invite-send-button" />
+      </View>
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  card: { gap: space[2] },
+  actions: { flexDirection: 'row', justifyContent: 'flex-end' },
+});

@@ -1,0 +1,2 @@
+/** Native screens have no document title. */
+export function useDocumentTitle(_title: string | undefined) {}
