@@ -6,6 +6,7 @@ export const CONSTANT_CP_K = 1.4;
 /** cp of the cold-air standard, kJ/(kg·K). */
 export const CONSTANT_CP_KJ_PER_KG_K = 1.005;
 const REFERENCE_K = 298.15;
+const P0_KPA = STANDARD_PRESSURE_KPA; // local copy: imported bindings are getters once transpiled
 
 /**
  * Cold-air standard for quick estimates: constant cp = 1.005 kJ/(kg·K) and k = 1.4, so
@@ -26,7 +27,7 @@ export class ConstantCpAir implements GasModel {
     return CONSTANT_CP_KJ_PER_KG_K * Math.log(temperatureK / REFERENCE_K);
   }
   entropyKJPerKgK(temperatureK: number, pressureKPa: number): number {
-    return this.standardEntropyKJPerKgK(temperatureK) - this.gasConstantKJPerKgK * Math.log(pressureKPa / STANDARD_PRESSURE_KPA);
+    return this.standardEntropyKJPerKgK(temperatureK) - this.gasConstantKJPerKgK * Math.log(pressureKPa / P0_KPA);
   }
   /** Closed form T = 298.15 + h / cp. */
   temperatureFromEnthalpy(enthalpyKJPerKg: number): number {

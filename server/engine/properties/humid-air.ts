@@ -1,7 +1,7 @@
 import psychrolib from 'psychrolib';
 import { EngineInputError } from '../errors';
 import { dryAirAmounts } from './dry-air';
-import { IdealGasMixture, collapseCoefficients } from './ideal-gas-mixture';
+import { IdealGasMixture, massOfAmounts } from './ideal-gas-mixture';
 import { SPECIES } from './nasa-species';
 
 // psychrolib keeps its unit system as module state: it is set here, once, and nowhere else.
@@ -48,7 +48,7 @@ export function humidAir(temperatureK: number, pressureKPa: number, relativeHumi
   }
   const amounts = dryAirAmounts();
   // kmol of dry air per kg of dry air
-  const dryMass = collapseCoefficients(amounts).massKg;
+  const dryMass = massOfAmounts(amounts);
   for (let i = 0; i < amounts.length; i++) amounts[i] /= dryMass;
   amounts[H2O_INDEX] = humidityRatio / SPECIES.H2O.molarMass;
   // Now per (1 + W) kg of humid air: scale to per kg.

@@ -10,46 +10,61 @@ import {
 /** Amount of each species, kmol, in SPECIES_ORDER (N2, O2, Ar, CO2, H2O, CH4, H2). */
 export type SpeciesAmounts = ArrayLike<number>;
 
-export const SPECIES_COUNT = SPECIES_ORDER.length;
-const MOLAR_MASSES = SPECIES_ORDER.map((name) => SPECIES[name].molarMass);
+export const SPECIES_COUNT = 7;
+
+// Module-local copies of the species data. The hot paths below read these instead of the
+// imported bindings: a transpiled import is a property getter on every read, which cost
+// more than the arithmetic itself.
+const MOLAR_MASSES = Float64Array.from(SPECIES_ORDER, (name) => SPECIES[name].molarMass);
+/** Ru × [low a1…a7, high a1…a7] per species, kJ/(kmol·K) units. */
+const MOLAR_COEFFICIENTS = SPECIES_ORDER.map((name) => {
+  const c = new Float64Array(14);
+  for (let k = 0; k < 7; k++) {
+    c[k] = UNIVERSAL_GAS_CONSTANT * SPECIES[name].low[k];
+    c[7 + k] = UNIVERSAL_GAS_CONSTANT * SPECIES[name].high[k];
+  }
+  return c;
+});
+const BREAK_K = POLYNOMIAL_BREAK_K;
+const RU = UNIVERSAL_GAS_CONSTANT;
+const P0_KPA = STANDARD_PRESSURE_KPA;
 
 /** Bounds of the temperature inversions, K: wide enough to reach just past the data range,
  * so a state outside 200–6000 K is found and then reported by the cycle, not hidden. */
 const INVERSION_MIN_K = 50;
 const INVERSION_MAX_K = 20000;
-const INVERSION_RELATIVE_TOLERANCE = 1e-13;
+const INVERSION_RELATIVE_TOLERANCE = 1e-12;
 
-/**
- * Collapses the species polynomials of an amount vector into one set per range, on the
- * basis of the vector's total mass: since cp/R is linear in the coefficients, a mixture's
- * cp, h and s° (without the mixing term) are a single 7-coefficient polynomial.
- * Returns the 14 numbers scaled to kJ/kg units: [low a1…a7, high a1…a7] × Ru / mass.
- * Negative amounts are allowed here (a change of composition, such as one kg of fuel burnt).
- */
-export function collapseCoefficients(amounts: SpeciesAmounts): { coefficients: Float64Array; massKg: number } {
+/** Mass of the amounts, kg. */
+export function massOfAmounts(amounts: SpeciesAmounts): number {
   let massKg = 0;
   for (let i = 0; i < SPECIES_COUNT; i++) massKg += amounts[i] * MOLAR_MASSES[i];
+  return massKg;
+}
+
+/**
+ * The polynomial of a set of amounts: since cp/R is linear in the coefficients, Σ nᵢ cpᵢ,
+ * Σ nᵢ hᵢ and Σ nᵢ s°ᵢ are each one 7-coefficient polynomial per range. Returns the 14
+ * numbers Σ nᵢ Ru aᵢ [low a1…a7, high a1…a7] (kJ, kJ/K units). Negative amounts are
+ * allowed (a change of composition, such as one kg of fuel burnt).
+ */
+export function extensiveCoefficients(amounts: SpeciesAmounts): Float64Array {
   const coefficients = new Float64Array(14);
   for (let i = 0; i < SPECIES_COUNT; i++) {
     const n = amounts[i];
     if (n === 0) continue;
-    const species = SPECIES[SPECIES_ORDER[i]];
-    for (let k = 0; k < 7; k++) {
-      coefficients[k] += n * species.low[k];
-      coefficients[7 + k] += n * species.high[k];
-    }
+    const c = MOLAR_COEFFICIENTS[i];
+    for (let k = 0; k < 14; k++) coefficients[k] += n * c[k];
   }
-  const scale = UNIVERSAL_GAS_CONSTANT / massKg;
-  for (let k = 0; k < 14; k++) coefficients[k] *= scale;
-  return { coefficients, massKg };
+  return coefficients;
 }
 
 /**
- * Total enthalpy Σ nᵢ hᵢ(T), kJ, of a collapsed set (see collapseCoefficients) multiplied back
- * by its mass: the enthalpy of the amounts themselves. Valid 200–6000 K.
+ * Total enthalpy Σ nᵢ hᵢ(T), kJ, from extensive coefficients (see extensiveCoefficients).
+ * Valid 200–6000 K.
  */
-export function enthalpyOfCoefficients(coefficients: Float64Array, temperatureK: number): number {
-  const o = temperatureK < POLYNOMIAL_BREAK_K ? 0 : 7;
+export function enthalpyOfCoefficients(coefficients: ArrayLike<number>, temperatureK: number): number {
+  const o = temperatureK < BREAK_K ? 0 : 7;
   const c = coefficients;
   const t = temperatureK;
   return t * (c[o] + t * (c[o + 1] / 2 + t * (c[o + 2] / 3 + t * (c[o + 3] / 4 + t * (c[o + 4] / 5))))) + c[o + 5];
@@ -69,24 +84,29 @@ export class IdealGasMixture implements GasModel {
   readonly moleFractions: readonly number[];
   // Coefficients pre-divided for h and s° per range, so evaluation is one Horner chain:
   // h = T(b1 + T(b2 + T(b3 + T(b4 + T b5)))) + b6; s° = b1 ln T + T(c2 + T(c3 + T(c4 + T c5))) + c7.
-  private readonly cpLow: Float64Array;
-  private readonly cpHigh: Float64Array;
-  private readonly hLow: Float64Array;
-  private readonly hHigh: Float64Array;
-  private readonly sLow: Float64Array;
-  private readonly sHigh: Float64Array;
+  private readonly cpLow: number[];
+  private readonly cpHigh: number[];
+  private readonly hLow: number[];
+  private readonly hHigh: number[];
+  private readonly sLow: number[];
+  private readonly sHigh: number[];
 
-  /** `amounts`: kmol of each species in SPECIES_ORDER, none negative, sum positive. */
-  constructor(amounts: SpeciesAmounts) {
+  /**
+   * `amounts`: kmol of each species in SPECIES_ORDER, none negative, sum positive.
+   * `coefficients` and `massKg` may be passed when already known (extensiveCoefficients
+   * and massOfAmounts of the same amounts), as the burner does.
+   */
+  constructor(amounts: SpeciesAmounts, coefficients?: ArrayLike<number>, massKg?: number) {
     let total = 0;
     for (let i = 0; i < SPECIES_COUNT; i++) {
       if (!(amounts[i] >= 0)) throw new RangeError('Species amounts must be zero or positive.');
       total += amounts[i];
     }
     if (!(total > 0)) throw new RangeError('A mixture needs a positive amount of gas.');
-    const { coefficients, massKg } = collapseCoefficients(amounts);
-    this.molarMassKgPerKmol = massKg / total;
-    this.gasConstantKJPerKgK = UNIVERSAL_GAS_CONSTANT / this.molarMassKgPerKmol;
+    const mass = massKg ?? massOfAmounts(amounts);
+    const c = coefficients ?? extensiveCoefficients(amounts);
+    this.molarMassKgPerKmol = mass / total;
+    this.gasConstantKJPerKgK = RU / this.molarMassKgPerKmol;
     const fractions: number[] = [];
     let mixingEntropy = 0;
     for (let i = 0; i < SPECIES_COUNT; i++) {
@@ -96,53 +116,46 @@ export class IdealGasMixture implements GasModel {
     }
     this.moleFractions = fractions;
     mixingEntropy *= this.gasConstantKJPerKgK;
-    const split = (o: number) => {
-      const a = coefficients.subarray(o, o + 7);
-      return {
-        cp: Float64Array.of(a[0], a[1], a[2], a[3], a[4]),
-        h: Float64Array.of(a[0], a[1] / 2, a[2] / 3, a[3] / 4, a[4] / 5, a[5]),
-        s: Float64Array.of(a[0], a[1], a[2] / 2, a[3] / 3, a[4] / 4, a[6] + mixingEntropy),
-      };
-    };
-    const low = split(0);
-    const high = split(7);
-    this.cpLow = low.cp;
-    this.cpHigh = high.cp;
-    this.hLow = low.h;
-    this.hHigh = high.h;
-    this.sLow = low.s;
-    this.sHigh = high.s;
+    // Written out as array literals (no helper closures, no typed arrays): this runs once
+    // per burner in every evaluation, and small literal arrays are the cheapest to allocate.
+    const k = 1 / mass;
+    this.cpLow = [c[0] * k, c[1] * k, c[2] * k, c[3] * k, c[4] * k];
+    this.cpHigh = [c[7] * k, c[8] * k, c[9] * k, c[10] * k, c[11] * k];
+    this.hLow = [c[0] * k, (c[1] * k) / 2, (c[2] * k) / 3, (c[3] * k) / 4, (c[4] * k) / 5, c[5] * k];
+    this.hHigh = [c[7] * k, (c[8] * k) / 2, (c[9] * k) / 3, (c[10] * k) / 4, (c[11] * k) / 5, c[12] * k];
+    this.sLow = [c[0] * k, c[1] * k, (c[2] * k) / 2, (c[3] * k) / 3, (c[4] * k) / 4, c[6] * k + mixingEntropy];
+    this.sHigh = [c[7] * k, c[8] * k, (c[9] * k) / 2, (c[10] * k) / 3, (c[11] * k) / 4, c[13] * k + mixingEntropy];
   }
 
   /** cp(T), kJ/(kg·K). Valid 200–6000 K. */
   cpKJPerKgK(temperatureK: number): number {
-    const c = temperatureK < POLYNOMIAL_BREAK_K ? this.cpLow : this.cpHigh;
+    const c = temperatureK < BREAK_K ? this.cpLow : this.cpHigh;
     const t = temperatureK;
     return c[0] + t * (c[1] + t * (c[2] + t * (c[3] + t * c[4])));
   }
 
   /** Absolute h(T), kJ/kg. Valid 200–6000 K. */
   enthalpyKJPerKg(temperatureK: number): number {
-    const c = temperatureK < POLYNOMIAL_BREAK_K ? this.hLow : this.hHigh;
+    const c = temperatureK < BREAK_K ? this.hLow : this.hHigh;
     const t = temperatureK;
     return t * (c[0] + t * (c[1] + t * (c[2] + t * (c[3] + t * c[4])))) + c[5];
   }
 
   /** Absolute s°(T) at 100 kPa with mixing, kJ/(kg·K). Valid 200–6000 K. */
   standardEntropyKJPerKgK(temperatureK: number): number {
-    const c = temperatureK < POLYNOMIAL_BREAK_K ? this.sLow : this.sHigh;
+    const c = temperatureK < BREAK_K ? this.sLow : this.sHigh;
     const t = temperatureK;
     return c[0] * Math.log(t) + t * (c[1] + t * (c[2] + t * (c[3] + t * c[4]))) + c[5];
   }
 
   /** s(T, p) = s°(T) − R ln(p / 100 kPa), kJ/(kg·K). */
   entropyKJPerKgK(temperatureK: number, pressureKPa: number): number {
-    return this.standardEntropyKJPerKgK(temperatureK) - this.gasConstantKJPerKgK * Math.log(pressureKPa / STANDARD_PRESSURE_KPA);
+    return this.standardEntropyKJPerKgK(temperatureK) - this.gasConstantKJPerKgK * Math.log(pressureKPa / P0_KPA);
   }
 
   /**
    * T(h) by Newton's method (dh/dT = cp > 0), kept inside a bracket that shrinks with every
-   * step, falling back to bisection if a step leaves it. Converges to 1e-13 relative in
+   * step, falling back to bisection if a step leaves it. Converges to 1e-12 relative (or better) in
    * two or three steps from a guess within a few hundred kelvin.
    */
   temperatureFromEnthalpy(enthalpyKJPerKg: number, guessK = 800): number {
@@ -165,10 +178,12 @@ export class IdealGasMixture implements GasModel {
       const residual = value - target;
       if (residual > 0) hi = t;
       else lo = t;
+      if (residual === 0) return t;
       const slope = entropy ? this.cpKJPerKgK(t) / t : this.cpKJPerKgK(t);
       let next = t - residual / slope;
-      if (!(next > lo && next < hi) || !(slope > 0)) next = 0.5 * (lo + hi);
+      // Converged once the Newton step is at rounding level, whichever side it falls on.
       if (Math.abs(next - t) <= INVERSION_RELATIVE_TOLERANCE * t) return next;
+      if (!(next > lo && next < hi) || !(slope > 0)) next = 0.5 * (lo + hi);
       if (hi - lo <= INVERSION_RELATIVE_TOLERANCE * t) return 0.5 * (lo + hi);
       t = next;
     }
