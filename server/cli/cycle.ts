@@ -1,0 +1,95 @@
+/**
+ * Cycle engine from the command line.
+ *   npm run --silent cycle -- FILE.json        evaluate one cycle (or an array of cycles)
+ *   npm run --silent cycle -- -                read the JSON from stdin
+ *   npm run --silent cycle -- --csv FILE.json  one CSV row per input instead of JSON
+ * Input shape: the body of POST /api/cycles/evaluate (see server/engine/README.md).
+ * Bad input: exit code 2 and `{ "error": { "code", "field", "message" } }` on stdout.
+ */
+import { readFileSync } from 'node:fs';
+import { evaluateRequestSchema } from '@/server/contracts/cycle';
+import { type CycleResult, EngineInputError, evaluateCycle } from '@/server/engine';
+import { ApiError, parse } from '@/server/http/errors';
+
+const EXIT_BAD_INPUT = 2;
+
+class UsageError extends Error {}
+
+const CSV_COLUMNS: Array<[string, (r: CycleResult) => number | null]> = [
+  ['netWorkKJPerKg', (r) => r.netWorkKJPerKg],
+  ['thermalEfficiency', (r) => r.thermalEfficiency],
+  ['heatInputKJPerKg', (r) => r.heatInputKJPerKg],
+  ['compressorWorkKJPerKg', (r) => r.compressorWorkKJPerKg],
+  ['turbineWorkKJPerKg', (r) => r.turbineWorkKJPerKg],
+  ['backWorkRatio', (r) => r.backWorkRatio],
+  ['regeneratorDutyKJPerKg', (r) => r.regeneratorDutyKJPerKg],
+  ['exhaustTemperatureK', (r) => r.exhaustTemperatureK],
+  ['fuelAirRatio', (r) => r.fuelAirRatio],
+  ['airMassFlowKgPerS', (r) => r.airMassFlowKgPerS],
+  ['fuelMassFlowKgPerS', (r) => r.fuelMassFlowKgPerS],
+  ['heatRateKJPerKWh', (r) => r.heatRateKJPerKWh],
+  ['co2KgPerMWh', (r) => r.co2KgPerMWh],
+];
+
+/** One CSV field (RFC 4180): quoted when it holds a comma, quote or line break. */
+function csvField(value: string | number | null): string {
+  const text = value === null ? '' : String(value);
+  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+}
+
+function toCsv(results: CycleResult[]): string {
+  const header = ['input', ...CSV_COLUMNS.map(([name]) => name), 'warnings'];
+  const rows = results.map((r, i) => [
+    i + 1,
+    ...CSV_COLUMNS.map(([, get]) => get(r)),
+    r.warnings.map((w) => w.code).join(' '),
+  ]);
+  return [header, ...rows].map((row) => row.map(csvField).join(',')).join('\n') + '\n';
+}
+
+function evaluateOne(body: unknown, path: string): CycleResult {
+  try {
+    return evaluateCycle(parse(evaluateRequestSchema, body));
+  } catch (error) {
+    if (error instanceof EngineInputError) throw ApiError.invalidField(path + error.field, error.message);
+    if (error instanceof ApiError && path) {
+      const field = error.details.field ?? '(body)';
+      throw ApiError.invalidField(path + field, error.message.replace(/^[^:]*: /, ''));
+    }
+    throw error;
+  }
+}
+
+function main(argv: string[]): number {
+  const csv = argv.includes('--csv');
+  const files = argv.filter((a) => a !== '--csv');
+  if (files.length !== 1) throw new UsageError('Usage: npm run --silent cycle -- [--csv] FILE.json | -');
+  const text = readFileSync(files[0] === '-' ? 0 : files[0], 'utf8');
+  let body: unknown;
+  try {
+    body = JSON.parse(text);
+  } catch {
+    throw ApiError.invalidField('(body)', 'The input is not valid JSON.');
+  }
+  const many = Array.isArray(body);
+  const inputs = many ? (body as unknown[]) : [body];
+  const results = inputs.map((input, i) => evaluateOne(input, many ? `${i}.` : ''));
+  process.stdout.write(csv ? toCsv(results) : JSON.stringify(many ? results : results[0], null, 2) + '\n');
+  return 0;
+}
+
+try {
+  process.exitCode = main(process.argv.slice(2));
+} catch (error) {
+  if (error instanceof ApiError) {
+    const field = error.details.field ?? '(body)';
+    const message = error.details.fieldErrors?.[field]?.[0] ?? error.message;
+    process.stdout.write(JSON.stringify({ error: { code: error.code, field, message } }) + '\n');
+    process.exitCode = EXIT_BAD_INPUT;
+  } else if (error instanceof UsageError || (error as NodeJS.ErrnoException)?.code === 'ENOENT') {
+    process.stderr.write(`${(error as Error).message}\n`);
+    process.exitCode = EXIT_BAD_INPUT;
+  } else {
+    throw error;
+  }
+}

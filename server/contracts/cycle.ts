@@ -1,0 +1,167 @@
+import { z } from 'zod';
+
+/**
+ * Request bodies of the cycle engine (POST /api/cycles/evaluate and /sweep), shared with
+ * the app's forms. SI units; pressure losses, efficiencies and effectiveness as fractions.
+ * Physically impossible combinations that depend on the computation itself (a burner exit
+ * below its inlet, more fuel than can burn, no expansion left) are caught by the engine.
+ */
+
+const num = (quantity: string) =>
+  z.number({
+    error: (issue) =>
+      issue.input === undefined ? `${quantity} is required.` : `${quantity} must be a number.`,
+  }).finite({ error: `${quantity} must be a finite number.` });
+
+const temperatureK = (quantity: string) =>
+  num(quantity)
+    .min(200, { error: `${quantity} must be at least 200 K (range of the property data).` })
+    .max(6000, { error: `${quantity} must be at most 6000 K (range of the property data).` });
+
+const fraction = (quantity: string) =>
+  num(quantity).min(0, { error: `${quantity} must be at least 0.` }).max(1, { error: `${quantity} must be at most 1.` });
+
+const efficiency = (quantity: string) =>
+  num(quantity).gt(0, { error: `${quantity} must be above 0.` }).max(1, { error: `${quantity} must be at most 1.` });
+
+const pressureLoss = (quantity: string) =>
+  num(quantity).min(0, { error: `${quantity} must be at least 0.` }).lt(1, { error: `${quantity} must be below 1 (a fraction of the inlet pressure).` });
+
+const stages = (quantity: string) =>
+  num(quantity)
+    .int({ error: `${quantity} must be a whole number.` })
+    .min(1, { error: `${quantity} must be at least 1.` })
+    .max(100, { error: `${quantity} must be at most 100.` });
+
+export const ambientSchema = z
+  .strictObject({
+    temperatureK: temperatureK('Ambient temperature'),
+    pressureKPa: num('Ambient pressure').gt(0, { error: 'Ambient pressure must be above 0 kPa.' }).optional(),
+    elevationM: num('Elevation')
+      .min(-1000, { error: 'Elevation must be at least −1000 m.' })
+      .max(20000, { error: 'Elevation must be at most 20 000 m.' })
+      .optional(),
+    relativeHumidity: fraction('Relative humidity'),
+  })
+  .superRefine((value, ctx) => {
+    if (value.pressureKPa === undefined && value.elevationM === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['pressureKPa'], message: 'Give the ambient pressure or the elevation.' });
+    }
+    if (value.pressureKPa !== undefined && value.elevationM !== undefined) {
+      ctx.addIssue({ code: 'custom', path: ['pressureKPa'], message: 'Give either the ambient pressure or the elevation, not both.' });
+    }
+  });
+
+export const fuelSchema = z.strictObject({
+  hydrogenVolumeFraction: fraction('Hydrogen volume fraction'),
+  temperatureK: temperatureK('Fuel temperature'),
+});
+
+export const compressorSchema = z.strictObject({
+  stages: stages('Number of compressor stages'),
+  pressureRatio: num('Pressure ratio').gt(1, { error: 'Pressure ratio must be above 1.' }),
+  isentropicEfficiency: efficiency('Compressor isentropic efficiency'),
+  /** Default: the ambient temperature (filled in by evaluateRequestSchema and by the engine). */
+  intercoolTemperatureK: temperatureK('Intercooling temperature').optional(),
+  intercoolerPressureLoss: pressureLoss('Intercooler pressure loss').default(0),
+});
+
+export const regeneratorSchema = z.strictObject({
+  effectiveness: fraction('Regenerator effectiveness'),
+  airSidePressureLoss: pressureLoss('Regenerator air-side pressure loss'),
+  gasSidePressureLoss: pressureLoss('Regenerator gas-side pressure loss'),
+});
+
+export const turbineSchema = z.strictObject({
+  stages: stages('Number of turbine stages'),
+  inletTemperatureK: temperatureK('Turbine inlet temperature'),
+  isentropicEfficiency: efficiency('Turbine isentropic efficiency'),
+  /** Default: the turbine inlet temperature. */
+  reheatTemperatureK: temperatureK('Reheat temperature').optional(),
+  reheaterPressureLoss: pressureLoss('Reheater pressure loss').default(0),
+});
+
+export const limitsSchema = z.strictObject({
+  maxTurbineInletTemperatureK: num('Turbine inlet temperature limit').gt(0).optional(),
+  exhaustTemperatureMinK: num('Lowest exhaust temperature').gt(0).optional(),
+  exhaustTemperatureMaxK: num('Highest exhaust temperature').gt(0).optional(),
+});
+
+/** One cycle as the engine takes it; defaults that depend on other fields stay optional. */
+export const cycleInputSchema = z
+  .strictObject({
+    ambient: ambientSchema,
+    fluid: z.enum(['variable-cp-air', 'combustion', 'constant-cp-air'], {
+      error: 'Working fluid must be variable-cp-air, combustion or constant-cp-air.',
+    }),
+    fuel: fuelSchema.nullable().optional(),
+    compressor: compressorSchema,
+    regenerator: regeneratorSchema.nullable().default(null),
+    combustorPressureLoss: pressureLoss('Combustor pressure loss'),
+    turbine: turbineSchema,
+    generatorEfficiency: efficiency('Generator efficiency'),
+    netPowerKW: num('Required net power').gt(0, { error: 'Required net power must be above 0 kW.' }),
+    limits: limitsSchema.nullable().optional(),
+  })
+  .superRefine((value, ctx) => {
+    if (value.fluid === 'combustion' && !value.fuel) {
+      ctx.addIssue({ code: 'custom', path: ['fuel'], message: 'The combustion working fluid needs a fuel.' });
+    }
+  });
+
+/** Body of POST /evaluate: one cycle, with the intercooling temperature defaulting to the
+ * ambient and the reheat temperature to the turbine inlet, filled in explicitly. */
+export const evaluateRequestSchema = cycleInputSchema.transform((value) => ({
+  ...value,
+  compressor: { ...value.compressor, intercoolTemperatureK: value.compressor.intercoolTemperatureK ?? value.ambient.temperatureK },
+  turbine: { ...value.turbine, reheatTemperatureK: value.turbine.reheatTemperatureK ?? value.turbine.inletTemperatureK },
+}));
+
+export const sweepParameterSchema = z.enum(
+  [
+    'ambient.temperatureK',
+    'ambient.pressureKPa',
+    'ambient.elevationM',
+    'ambient.relativeHumidity',
+    'fuel.hydrogenVolumeFraction',
+    'fuel.temperatureK',
+    'compressor.stages',
+    'compressor.pressureRatio',
+    'compressor.isentropicEfficiency',
+    'compressor.intercoolTemperatureK',
+    'compressor.intercoolerPressureLoss',
+    'regenerator.effectiveness',
+    'regenerator.airSidePressureLoss',
+    'regenerator.gasSidePressureLoss',
+    'combustorPressureLoss',
+    'turbine.stages',
+    'turbine.inletTemperatureK',
+    'turbine.isentropicEfficiency',
+    'turbine.reheatTemperatureK',
+    'turbine.reheaterPressureLoss',
+    'generatorEfficiency',
+    'netPowerKW',
+  ],
+  { error: 'Sweep parameter must be one of the numeric inputs, e.g. compressor.pressureRatio.' },
+);
+
+/** Body of POST /sweep. Defaults left out of `base` follow the swept value (reheat follows the turbine inlet). */
+export const sweepRequestSchema = z
+  .strictObject({
+    base: cycleInputSchema,
+    parameter: sweepParameterSchema,
+    from: num('Start of the range'),
+    to: num('End of the range'),
+    points: num('Number of points')
+      .int({ error: 'Number of points must be a whole number.' })
+      .min(2, { error: 'Number of points must be at least 2.' })
+      .max(1000, { error: 'Number of points must be at most 1000.' }),
+  })
+  .superRefine((value, ctx) => {
+    if (!(value.to > value.from)) ctx.addIssue({ code: 'custom', path: ['to'], message: 'End of the range must be above its start.' });
+  });
+
+export type CycleInputBody = z.infer<typeof cycleInputSchema>;
+export type EvaluateRequest = z.infer<typeof evaluateRequestSchema>;
+export type SweepRequest = z.infer<typeof sweepRequestSchema>;
+export type SweepParameterName = z.infer<typeof sweepParameterSchema>;
