@@ -20,5 +20,5 @@ export function Badge({ label, tone = 'neutral', testID }: { label: string; tone
 }
 
 const styles = StyleSheet.create({
-  badge: { borderWidth: 1, borderRadius: radius.pill, paddingHorizontal: space[1], paddingVertical: 2, alignSelf: 'flex-start' },
+  badge: { borderWidth: 1, borderRadius: radius.pill, paddingHorizontal: space[1], paddingVertical: 2 },
 });

@@ -1,4 +1,3 @@
-import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 
 import { useActivityQuery } from '@/components/data/activity';
@@ -6,6 +5,7 @@ import { useTeamLiveUpdates } from '@/components/data/team-live-updates';
 import { useCurrentTeam } from '@/components/state/current-team';
 import { Card } from '@/components/ui/card';
 import { formatAgo, formatDateTime } from '@/components/ui/format';
+import { PressableLink } from '@/components/ui/pressable-link';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Text } from '@/components/ui/text';
@@ -64,11 +64,11 @@ export function ActivityScreen() {
                   {formatAgo(a.createdAt)}
                 </Text>
                 {a.reviewId && a.kind !== 'review.archived' ? (
-                  <Link href={`/reviews/${a.reviewId}`} accessibilityLabel="Open the review" style={styles.link}>
+                  <PressableLink href={`/reviews/${a.reviewId}`} accessibilityLabel={`Open the review ${str(a.detail.name) || ''}`.trim()} style={styles.link}>
                     <Text size="small" tone="cold" weight="medium">
                       Open review
                     </Text>
-                  </Link>
+                  </PressableLink>
                 ) : null}
               </View>
             </View>
@@ -86,9 +86,9 @@ export function ActivityScreen() {
 
 const styles = StyleSheet.create({
   list: { padding: 0 },
-  row: { flexDirection: 'row', gap: space[1] + space.half, padding: space[2] },
+  row: { flexDirection: 'row', gap: space[1] + space.half, paddingHorizontal: space[2], paddingTop: space[2], paddingBottom: space.half },
   mark: { width: 8, height: 8, borderRadius: 4, marginTop: 8 },
   text: { flex: 1, gap: space.half },
   metaRow: { flexDirection: 'row', alignItems: 'center', gap: space[2] },
-  link: { paddingVertical: space.half },
+  link: { minHeight: 44, minWidth: 44, justifyContent: 'center' },
 });

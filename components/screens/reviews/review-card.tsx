@@ -1,6 +1,5 @@
-import { Link } from 'expo-router';
 import { useState } from 'react';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 
 import { isApiError } from '@/components/data/api-error';
 import { useUpdateReviewMutation } from '@/components/data/reviews';
@@ -9,6 +8,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Field } from '@/components/ui/field';
 import { formatAgo } from '@/components/ui/format';
+import { PressableLink } from '@/components/ui/pressable-link';
 import { useMessage } from '@/components/ui/message';
 import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
@@ -85,9 +85,8 @@ export function ReviewCard({ review, canEdit, canArchive }: { review: Review; ca
           </View>
         </View>
       ) : (
-        <Link href={`/reviews/${review.id}`} asChild>
-          <Pressable
-            accessibilityRole="link"
+          <PressableLink
+            href={`/reviews/${review.id}`}
             accessibilityLabel={`Open review ${review.name}`}
             testID={`review-open-${review.id}`}
             style={({ hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
@@ -110,8 +109,7 @@ export function ReviewCard({ review, canEdit, canArchive }: { review: Review; ca
             <Text size="small" tone="muted">
               {review.createdBy ? `Started by ${review.createdBy.name} · ` : ''}updated {formatAgo(review.updatedAt)}
             </Text>
-          </Pressable>
-        </Link>
+          </PressableLink>
       )}
       {!renaming && (canEdit || canArchive) ? (
         <View style={[styles.actions, { borderTopColor: t.hairline }, styles.footer]}>

@@ -1,6 +1,5 @@
-import { Link } from 'expo-router';
 import { useEffect } from 'react';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 
 import { useReviewQuery } from '@/components/data/reviews';
 import { useTeamLiveUpdates } from '@/components/data/team-live-updates';
@@ -9,6 +8,7 @@ import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
 import { CautionLine } from '@/components/ui/caution-line';
 import { formatDate } from '@/components/ui/format';
+import { PressableLink } from '@/components/ui/pressable-link';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Heading, Text } from '@/components/ui/text';
@@ -30,13 +30,11 @@ export function ReviewScreen({ reviewId }: { reviewId: string }) {
   }, [reviewTeamId, team?.id, teams, selectTeam]);
 
   const back = (
-    <Link href="/" asChild>
-      <Pressable accessibilityRole="link" accessibilityLabel="Back to reviews" testID="back-to-reviews" style={styles.back}>
+    <PressableLink href="/" accessibilityLabel="Back to reviews" testID="back-to-reviews" style={styles.back}>
         <Text size="small" tone="soft">
           ← Reviews
         </Text>
-      </Pressable>
-    </Link>
+    </PressableLink>
   );
 
   if (review.error) {

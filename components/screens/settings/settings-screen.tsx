@@ -57,10 +57,15 @@ export function SettingsScreen() {
       <Card style={styles.card}>
         <Heading level={2}>Units</Heading>
         <Choice<UnitSystem> label="Unit system" options={unitOptions} value={system} onChange={setSystem} testID="unit-system" />
+        <View style={styles.example}>
+          <Text size="small" tone="soft">
+            ISO rating ambient
+          </Text>
+          <Quantity value={iso.value} unit={iso.unit} testID="unit-example" />
+        </View>
         <Text size="small" tone="muted">
-          Kept on this device for your account. Example: the ISO rating ambient reads{' '}
+          Kept on this device for your account. Plant power reads in MW in both systems.
         </Text>
-        <Quantity value={iso.value} unit={iso.unit} testID="unit-example" />
       </Card>
       <Card style={styles.card}>
         <Heading level={2}>Session</Heading>
@@ -75,4 +80,5 @@ export function SettingsScreen() {
 const styles = StyleSheet.create({
   card: { gap: space[2] },
   actions: { flexDirection: 'row' },
+  example: { flexDirection: 'row', alignItems: 'baseline', justifyContent: 'space-between', gap: space[2] },
 });

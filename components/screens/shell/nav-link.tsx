@@ -1,6 +1,6 @@
-import { Link } from 'expo-router';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 
+import { PressableLink } from '@/components/ui/pressable-link';
 import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { radius, space, touchTarget } from '@/components/ui/tokens';
@@ -13,9 +13,8 @@ export function NavLink({ item, active, layout }: { item: NavItem; active: boole
   const colour = active ? t.text : t.textMuted;
   const { Icon } = item;
   return (
-    <Link href={item.href} asChild>
-      <Pressable
-        accessibilityRole="link"
+      <PressableLink
+        href={item.href}
         accessibilityLabel={item.label}
         aria-current={active ? 'page' : undefined}
         testID={item.testID}
@@ -31,8 +30,7 @@ export function NavLink({ item, active, layout }: { item: NavItem; active: boole
           {item.label}
         </Text>
         {layout === 'bar' && active ? <View style={[styles.barMark, { backgroundColor: t.text }]} /> : null}
-      </Pressable>
-    </Link>
+      </PressableLink>
   );
 }
 
