@@ -171,3 +171,18 @@ export async function ensureDatabase(cluster: Cluster, name: string, { fresh = f
   }
   return cluster.url(name);
 }
+
+/** Drops the per-run test databases `cyclemoot_t<pid>_*` whose run `drop(pid)` selects. */
+export async function dropTestDatabases(cluster: Cluster, drop: (pid: number) => boolean) {
+  const client = new Client({ connectionString: cluster.url('postgres') });
+  await client.connect();
+  try {
+    const { rows } = await client.query<{ datname: string }>("select datname from pg_database where datname like 'cyclemoot\\_t%\\_%'");
+    for (const { datname } of rows) {
+      const pid = Number(/^cyclemoot_t(\d+)_/.exec(datname)?.[1]);
+      if (pid && drop(pid)) await client.query(`drop database if exists ${datname} with (force)`);
+    }
+  } finally {
+    await client.end();
+  }
+}

@@ -1,28 +1,53 @@
+import { createServer, type AddressInfo } from 'node:net';
+
 import type { TestProject } from 'vitest/node';
 
 import { startMailFake, type MailFake } from '@/server/ops/mail-fake';
 import { migrateDatabase } from '@/server/ops/migrate';
-import { ensureCluster, ensureDatabase } from '@/server/ops/postgres';
+import { dropTestDatabases, ensureCluster, ensureDatabase } from '@/server/ops/postgres';
 
 let mail: MailFake | undefined;
 
+function isAlive(pid: number) {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const { port } = probe.address() as AddressInfo;
+      probe.close(() => resolve(port));
+    });
+  });
+}
+
 /**
  * Once per vitest run: the project's Postgres cluster with a fresh `cyclemoot_test`
- * database (never the demo data), migrated, and a mail fake on its own ports.
+ * database (never the demo data), migrated, and a mail fake on free loopback ports.
  */
 export default async function setup(project: TestProject) {
   const cluster = await ensureCluster();
-  const databaseUrl = await ensureDatabase(cluster, 'cyclemoot_test', { fresh: true });
+  // One database per run (never the demo data); leftovers of runs that were killed are dropped.
+  await dropTestDatabases(cluster, (pid) => !isAlive(pid));
+  const runId = `t${process.pid}`;
+  const databaseUrl = await ensureDatabase(cluster, `cyclemoot_${runId}_main`, { fresh: true });
   await migrateDatabase(databaseUrl);
-  mail = await startMailFake({
-    smtpPort: Number(process.env.CYCLEMOOT_TEST_SMTP_PORT ?? 2526),
-    webPort: Number(process.env.CYCLEMOOT_TEST_MAIL_PORT ?? 8026),
-  });
+  // Free ports each run, so two test runs on one machine never trip over each other.
+  mail = await startMailFake({ smtpPort: await freePort(), webPort: await freePort() });
   project.provide('databaseUrl', databaseUrl);
+  project.provide('runId', runId);
   project.provide('smtpPort', mail.smtpPort);
   project.provide('mailboxURL', mail.webURL);
   return async () => {
     await mail?.stop();
+    await dropTestDatabases(cluster, (pid) => pid === process.pid);
   };
 }
 
@@ -31,5 +56,7 @@ declare module 'vitest' {
     databaseUrl: string;
     smtpPort: number;
     mailboxURL: string;
+    /** Prefix for extra databases a test file makes: `cyclemoot_<runId>_<name>`. */
+    runId: string;
   }
 }

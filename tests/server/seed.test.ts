@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import supertest from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
 import { createDatabase, type Database } from '@/db/client';
 import { member, review } from '@/db/schema';
@@ -17,7 +17,7 @@ let db: Database;
 
 beforeAll(async () => {
   // A database of its own: the demo data never mixes with other tests' rows.
-  const url = await ensureDatabase(await ensureCluster(), 'cyclemoot_seedcheck', { fresh: true });
+  const url = await ensureDatabase(await ensureCluster(), `cyclemoot_${inject('runId')}_seed`, { fresh: true });
   await migrateDatabase(url);
   db = createDatabase(url, 2);
 });
