@@ -21,4 +21,15 @@ config.resolver.blockList = [
   ...['.data', 'dist', 'artifacts'].map((dir) => new RegExp(`^${escape(path.join(__dirname, dir))}\\/.*`)),
 ];
 
+// zod re-exports every locale table as `z.locales`; nothing here uses them, and English
+// (the default) is imported by zod directly. Point the re-export at an English-only shim.
+const zodLocalesShim = path.join(__dirname, 'components', 'data', 'zod-english-only.js');
+const defaultResolve = config.resolver.resolveRequest;
+config.resolver.resolveRequest = (context, moduleName, platform) => {
+  if (moduleName === '../locales/index.js' && /[\\/]node_modules[\\/]zod[\\/]v4[\\/]/.test(context.originModulePath)) {
+    return { type: 'sourceFile', filePath: zodLocalesShim };
+  }
+  return (defaultResolve ?? context.resolveRequest)(context, moduleName, platform);
+};
+
 module.exports = config;

@@ -51,7 +51,7 @@ async function signUp(page: Page, name: string, email: string) {
 }
 
 /** Opens the invitation link from the mailbox in `page`, signs up as the invitee, accepts. */
-async function acceptByMail(page: Page, email: string, name: string, expect_: { teamName: string; inviter: string; role: string }) {
+async function acceptByMail(page: Page, email: string, name: string, expect_: { teamName: string; inviter: string; role: string; shot: string }) {
   const mail = await waitForMail(email);
   expect(mail.subject).toContain(expect_.teamName);
   const link = mail.text.match(/https?:\/\/\S+\/invitation\/[\w-]+/)?.[0];
@@ -66,6 +66,7 @@ async function acceptByMail(page: Page, email: string, name: string, expect_: { 
   expect(await byTestId(page, 'invitation-role').textContent()).toBe(expect_.role);
   // The sign-up form starts with the invited address.
   expect(await byTestId(page, 'sign-up-email').inputValue()).toBe(email);
+  await page.screenshot({ path: path.join(screenshotDir, `${expect_.shot}.png`) });
 
   await byTestId(page, 'sign-up-name').fill(name);
   await byTestId(page, 'sign-up-password').fill(password);
@@ -203,7 +204,7 @@ describe.each(viewports)('first journey at $name size', ({ name: viewport, size 
     await snap(page, viewport, '08-team-invited');
 
     const guestPage = guest.pages()[0] ?? (await guest.newPage());
-    await acceptByMail(guestPage, engineerEmail, 'Jonas Lie', { teamName, inviter: 'Solveig Aas', role: 'Engineer' });
+    await acceptByMail(guestPage, engineerEmail, 'Jonas Lie', { teamName, inviter: 'Solveig Aas', role: 'Engineer', shot: `${viewport}-09a-invitation` });
     // An Engineer sees the Review but may not create, rename or archive Reviews.
     await expect.poll(() => byTestId(guestPage, 'review-name').allTextContents()).toEqual([renamed]);
     expect(await byTestId(guestPage, 'new-review-button').count()).toBe(0);
@@ -213,7 +214,7 @@ describe.each(viewports)('first journey at $name size', ({ name: viewport, size 
     await byTestId(guestPage, 'nav-settings').click();
     await byTestId(guestPage, 'sign-out-button').click();
     await byTestId(guestPage, 'sign-in-screen').waitFor();
-    await acceptByMail(guestPage, observerEmail, 'Maren Dahl', { teamName, inviter: 'Solveig Aas', role: 'Observer' });
+    await acceptByMail(guestPage, observerEmail, 'Maren Dahl', { teamName, inviter: 'Solveig Aas', role: 'Observer', shot: `${viewport}-09b-invitation-observer` });
     await expect.poll(() => byTestId(guestPage, 'review-name').allTextContents()).toEqual([renamed]);
     expect(await byTestId(guestPage, 'new-review-button').count()).toBe(0);
     expect(await guestPage.locator('[data-testid^="review-rename-"]').count()).toBe(0);
