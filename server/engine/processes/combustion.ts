@@ -1,5 +1,6 @@
 import {
   IdealGasMixture,
+  EXTENSIVE_LENGTH,
   SPECIES_COUNT,
   enthalpyOfCoefficients,
   extensiveCoefficients,
@@ -120,7 +121,7 @@ export function burnToTemperature(stream: GasStream, inletK: number, outletK: nu
   const c = stream.coefficients;
   const d = fuel.changeCoefficients;
   const coefficients: number[] = [];
-  for (let k = 0; k < 14; k++) coefficients.push(c[k] + fuelKg * d[k]);
+  for (let k = 0; k < EXTENSIVE_LENGTH; k++) coefficients.push(c[k] + fuelKg * d[k]);
   const mass = stream.mass + fuelKg;
   return {
     ok: true,

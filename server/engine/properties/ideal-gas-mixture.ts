@@ -1,5 +1,6 @@
 import type { GasModel } from './gas-model';
 import {
+  COEFFICIENTS_PER_RANGE,
   POLYNOMIAL_BREAK_K,
   SPECIES,
   SPECIES_ORDER,
@@ -12,22 +13,26 @@ export type SpeciesAmounts = ArrayLike<number>;
 
 export const SPECIES_COUNT = 7;
 
+/** Length of an extensive coefficient set: 9 numbers (a1…a7, b1, b2) for each of two ranges. */
+export const EXTENSIVE_LENGTH = 2 * COEFFICIENTS_PER_RANGE;
+
 // Module-local copies of the species data. The hot paths below read these instead of the
 // imported bindings: a transpiled import is a property getter on every read, which cost
 // more than the arithmetic itself.
 const MOLAR_MASSES = Float64Array.from(SPECIES_ORDER, (name) => SPECIES[name].molarMass);
-/** Ru × [low a1…a7, high a1…a7] per species, kJ/(kmol·K) units. */
+/** Ru × [low a1…a7 b1 b2, high a1…a7 b1 b2] per species, kJ/(kmol·K) units. */
 const MOLAR_COEFFICIENTS = SPECIES_ORDER.map((name) => {
-  const c = new Float64Array(14);
-  for (let k = 0; k < 7; k++) {
+  const c = new Float64Array(EXTENSIVE_LENGTH);
+  for (let k = 0; k < COEFFICIENTS_PER_RANGE; k++) {
     c[k] = UNIVERSAL_GAS_CONSTANT * SPECIES[name].low[k];
-    c[7 + k] = UNIVERSAL_GAS_CONSTANT * SPECIES[name].high[k];
+    c[COEFFICIENTS_PER_RANGE + k] = UNIVERSAL_GAS_CONSTANT * SPECIES[name].high[k];
   }
   return c;
 });
 const BREAK_K = POLYNOMIAL_BREAK_K;
 const RU = UNIVERSAL_GAS_CONSTANT;
 const P0_KPA = STANDARD_PRESSURE_KPA;
+const HIGH = COEFFICIENTS_PER_RANGE;
 
 /** Bounds of the temperature inversions, K: wide enough to reach just past the data range,
  * so a state outside 200–6000 K is found and then reported by the cycle, not hidden. */
@@ -44,34 +49,63 @@ export function massOfAmounts(amounts: SpeciesAmounts): number {
 
 /**
  * The polynomial of a set of amounts: since cp/R is linear in the coefficients, Σ nᵢ cpᵢ,
- * Σ nᵢ hᵢ and Σ nᵢ s°ᵢ are each one 7-coefficient polynomial per range. Returns the 14
- * numbers Σ nᵢ Ru aᵢ [low a1…a7, high a1…a7] (kJ, kJ/K units). Negative amounts are
- * allowed (a change of composition, such as one kg of fuel burnt).
+ * Σ nᵢ hᵢ and Σ nᵢ s°ᵢ are each one 9-coefficient polynomial per range. Returns the 18
+ * numbers Σ nᵢ Ru aᵢ [low a1…a7 b1 b2, high a1…a7 b1 b2] (kJ, kJ/K units). Negative
+ * amounts are allowed (a change of composition, such as one kg of fuel burnt).
  */
 export function extensiveCoefficients(amounts: SpeciesAmounts): Float64Array {
-  const coefficients = new Float64Array(14);
+  const coefficients = new Float64Array(EXTENSIVE_LENGTH);
   for (let i = 0; i < SPECIES_COUNT; i++) {
     const n = amounts[i];
     if (n === 0) continue;
     const c = MOLAR_COEFFICIENTS[i];
-    for (let k = 0; k < 14; k++) coefficients[k] += n * c[k];
+    for (let k = 0; k < EXTENSIVE_LENGTH; k++) coefficients[k] += n * c[k];
   }
   return coefficients;
 }
 
 /**
- * Total enthalpy Σ nᵢ hᵢ(T), kJ, from extensive coefficients (see extensiveCoefficients).
- * Valid 200–6000 K.
+ * Total enthalpy Σ nᵢ hᵢ(T), kJ, from extensive coefficients (see extensiveCoefficients):
+ * H = −a1/T + a2 ln T + a3 T + a4 T²/2 + a5 T³/3 + a6 T⁴/4 + a7 T⁵/5 + b1. Valid 200–6000 K.
  */
 export function enthalpyOfCoefficients(coefficients: ArrayLike<number>, temperatureK: number): number {
-  const o = temperatureK < BREAK_K ? 0 : 7;
+  const o = temperatureK < BREAK_K ? 0 : HIGH;
   const c = coefficients;
   const t = temperatureK;
-  return t * (c[o] + t * (c[o + 1] / 2 + t * (c[o + 2] / 3 + t * (c[o + 3] / 4 + t * (c[o + 4] / 5))))) + c[o + 5];
+  return (
+    -c[o] / t +
+    c[o + 1] * Math.log(t) +
+    t * (c[o + 2] + t * (c[o + 3] / 2 + t * (c[o + 4] / 3 + t * (c[o + 5] / 4 + t * (c[o + 6] / 5))))) +
+    c[o + 7]
+  );
+}
+
+// Layout of the per-kg numbers of one range in IdealGasMixture, pre-divided so each
+// property is one Horner chain (u = 1/T):
+//   cp = (p0 u + p1) u + p2 + T(p3 + T(p4 + T(p5 + T p6)))
+//   h  = p7 u + p8 ln T + T(p9 + T(p10 + T(p11 + T(p12 + T p13)))) + p14
+//   s° = (p15 u + p16) u + p17 ln T + T(p18 + T(p19 + T(p20 + T p21))) + p22
+const RANGE_LENGTH = 23;
+
+function perKgRange(c: ArrayLike<number>, o: number, k: number, mixingEntropy: number): number[] {
+  const a1 = c[o] * k;
+  const a2 = c[o + 1] * k;
+  const a3 = c[o + 2] * k;
+  const a4 = c[o + 3] * k;
+  const a5 = c[o + 4] * k;
+  const a6 = c[o + 5] * k;
+  const a7 = c[o + 6] * k;
+  // One array literal: this runs once per burner in every evaluation, and a small literal
+  // array is the cheapest thing to allocate and to read back.
+  return [
+    a1, a2, a3, a4, a5, a6, a7,
+    -a1, a2, a3, a4 / 2, a5 / 3, a6 / 4, a7 / 5, c[o + 7] * k,
+    -a1 / 2, -a2, a3, a4, a5 / 2, a6 / 3, a7 / 4, c[o + 8] * k + mixingEntropy,
+  ];
 }
 
 /**
- * An ideal-gas mixture of fixed composition with NASA 7-coefficient species data
+ * An ideal-gas mixture of fixed composition with NASA 9-coefficient species data
  * (see nasa-species.ts; valid 200–6000 K). Properties per kg of mixture.
  * Reference states: enthalpy absolute (elements zero at 298.15 K, so formation enthalpies
  * included); entropy absolute (third law) at 100 kPa, including the ideal entropy of
@@ -80,16 +114,8 @@ export function enthalpyOfCoefficients(coefficients: ArrayLike<number>, temperat
 export class IdealGasMixture implements GasModel {
   readonly molarMassKgPerKmol: number;
   readonly gasConstantKJPerKgK: number;
-  /** Mole fractions in SPECIES_ORDER. */
-  readonly moleFractions: readonly number[];
-  // Coefficients pre-divided for h and s° per range, so evaluation is one Horner chain:
-  // h = T(b1 + T(b2 + T(b3 + T(b4 + T b5)))) + b6; s° = b1 ln T + T(c2 + T(c3 + T(c4 + T c5))) + c7.
-  private readonly cpLow: number[];
-  private readonly cpHigh: number[];
-  private readonly hLow: number[];
-  private readonly hHigh: number[];
-  private readonly sLow: number[];
-  private readonly sHigh: number[];
+  private readonly low: number[];
+  private readonly high: number[];
 
   /**
    * `amounts`: kmol of each species in SPECIES_ORDER, none negative, sum positive.
@@ -107,45 +133,38 @@ export class IdealGasMixture implements GasModel {
     const c = coefficients ?? extensiveCoefficients(amounts);
     this.molarMassKgPerKmol = mass / total;
     this.gasConstantKJPerKgK = RU / this.molarMassKgPerKmol;
-    const fractions: number[] = [];
     let mixingEntropy = 0;
     for (let i = 0; i < SPECIES_COUNT; i++) {
       const x = amounts[i] / total;
-      fractions.push(x);
       if (x > 0) mixingEntropy -= x * Math.log(x);
     }
-    this.moleFractions = fractions;
     mixingEntropy *= this.gasConstantKJPerKgK;
-    // Written out as array literals (no helper closures, no typed arrays): this runs once
-    // per burner in every evaluation, and small literal arrays are the cheapest to allocate.
     const k = 1 / mass;
-    this.cpLow = [c[0] * k, c[1] * k, c[2] * k, c[3] * k, c[4] * k];
-    this.cpHigh = [c[7] * k, c[8] * k, c[9] * k, c[10] * k, c[11] * k];
-    this.hLow = [c[0] * k, (c[1] * k) / 2, (c[2] * k) / 3, (c[3] * k) / 4, (c[4] * k) / 5, c[5] * k];
-    this.hHigh = [c[7] * k, (c[8] * k) / 2, (c[9] * k) / 3, (c[10] * k) / 4, (c[11] * k) / 5, c[12] * k];
-    this.sLow = [c[0] * k, c[1] * k, (c[2] * k) / 2, (c[3] * k) / 3, (c[4] * k) / 4, c[6] * k + mixingEntropy];
-    this.sHigh = [c[7] * k, c[8] * k, (c[9] * k) / 2, (c[10] * k) / 3, (c[11] * k) / 4, c[13] * k + mixingEntropy];
+    this.low = perKgRange(c, 0, k, mixingEntropy);
+    this.high = perKgRange(c, HIGH, k, mixingEntropy);
   }
 
-  /** cp(T), kJ/(kg·K). Valid 200–6000 K. */
+  /** cp(T) = R (a1 T⁻² + a2 T⁻¹ + a3 + a4 T + … + a7 T⁴), kJ/(kg·K). Valid 200–6000 K. */
   cpKJPerKgK(temperatureK: number): number {
-    const c = temperatureK < BREAK_K ? this.cpLow : this.cpHigh;
+    const c = temperatureK < BREAK_K ? this.low : this.high;
     const t = temperatureK;
-    return c[0] + t * (c[1] + t * (c[2] + t * (c[3] + t * c[4])));
+    const u = 1 / t;
+    return (c[0] * u + c[1]) * u + c[2] + t * (c[3] + t * (c[4] + t * (c[5] + t * c[6])));
   }
 
-  /** Absolute h(T), kJ/kg. Valid 200–6000 K. */
+  /** Absolute h(T), kJ/kg (form in nasa-species.ts). Valid 200–6000 K. */
   enthalpyKJPerKg(temperatureK: number): number {
-    const c = temperatureK < BREAK_K ? this.hLow : this.hHigh;
+    const c = temperatureK < BREAK_K ? this.low : this.high;
     const t = temperatureK;
-    return t * (c[0] + t * (c[1] + t * (c[2] + t * (c[3] + t * c[4])))) + c[5];
+    return c[7] / t + c[8] * Math.log(t) + t * (c[9] + t * (c[10] + t * (c[11] + t * (c[12] + t * c[13])))) + c[14];
   }
 
   /** Absolute s°(T) at 100 kPa with mixing, kJ/(kg·K). Valid 200–6000 K. */
   standardEntropyKJPerKgK(temperatureK: number): number {
-    const c = temperatureK < BREAK_K ? this.sLow : this.sHigh;
+    const c = temperatureK < BREAK_K ? this.low : this.high;
     const t = temperatureK;
-    return c[0] * Math.log(t) + t * (c[1] + t * (c[2] + t * (c[3] + t * c[4]))) + c[5];
+    const u = 1 / t;
+    return (c[15] * u + c[16]) * u + c[17] * Math.log(t) + t * (c[18] + t * (c[19] + t * (c[20] + t * c[21]))) + c[22];
   }
 
   /** s(T, p) = s°(T) − R ln(p / 100 kPa), kJ/(kg·K). */
