@@ -7,6 +7,9 @@
  * Bad input: exit code 2 and `{ "error": { "code", "field", "message" } }` on stdout.
  */
 import { readFileSync } from 'node:fs';
+
+import { stringify } from 'csv-stringify/sync';
+
 import { evaluateRequestSchema } from '@/server/contracts/cycle';
 import { type CycleResult, EngineInputError, evaluateCycle } from '@/server/engine';
 import { ApiError, parse } from '@/server/http/errors';
@@ -31,12 +34,6 @@ const CSV_COLUMNS: Array<[string, (r: CycleResult) => number | null]> = [
   ['co2KgPerMWh', (r) => r.co2KgPerMWh],
 ];
 
-/** One CSV field (RFC 4180): quoted when it holds a comma, quote or line break. */
-function csvField(value: string | number | null): string {
-  const text = value === null ? '' : String(value);
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
 function toCsv(results: CycleResult[]): string {
   const header = ['input', ...CSV_COLUMNS.map(([name]) => name), 'warnings'];
   const rows = results.map((r, i) => [
@@ -44,7 +41,7 @@ function toCsv(results: CycleResult[]): string {
     ...CSV_COLUMNS.map(([, get]) => get(r)),
     r.warnings.map((w) => w.code).join(' '),
   ]);
-  return [header, ...rows].map((row) => row.map(csvField).join(',')).join('\n') + '\n';
+  return stringify([header, ...rows], { cast: { number: (n) => String(n) } });
 }
 
 function evaluateOne(body: unknown, path: string): CycleResult {
