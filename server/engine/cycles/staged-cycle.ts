@@ -1,14 +1,13 @@
 import { EngineInputError } from '../errors';
-import { type BurnOutcome, type Fuel, type GasStream, burnToTemperature, makeFuel, makeStream } from '../processes/combustion';
+import { type BurnOutcome, type Fuel, type GasStream, burnForRise, fuelRelease, makeFuel, makeStream } from '../processes/combustion';
 import { compress } from '../processes/compression';
 import { expand } from '../processes/expansion';
 import { type FlowState, stateAt } from '../processes/flow-state';
-import { changeTemperature, regenerate } from '../processes/heat-exchange';
+import { type RegeneratorOutcome, changeTemperature, regenerate } from '../processes/heat-exchange';
 import { ConstantCpAir } from '../properties/constant-cp-air';
 import type { GasModel } from '../properties/gas-model';
 import { humidAir } from '../properties/humid-air';
-import { POLYNOMIAL_MAX_K, POLYNOMIAL_MIN_K } from '../properties/nasa-species';
-import { solveFixedPoint } from '../solvers/root-finding';
+import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K } from '../properties/nasa-species';
 import { type ResolvedInput, resolveInput } from './resolve-input';
 import { changingCompositionPath, isobarPath, polytropicPath } from './t-s-paths';
 import type { CycleInput, CycleResult, CycleWarning, EvaluateOptions, PathKind, ProcessPath, StatePoint } from './types';
@@ -16,6 +15,9 @@ import type { CycleInput, CycleResult, CycleWarning, EvaluateOptions, PathKind, 
 /** Above this burner exit temperature the products dissociate noticeably, which complete combustion ignores (common practice). */
 const DISSOCIATION_WARNING_K = 2200;
 const DEFAULT_POINTS_PER_PROCESS = 16;
+// Local copies: an imported binding is a getter once transpiled, and these are read per stage.
+const POLYNOMIAL_MIN_K = DATA_MIN_K;
+const POLYNOMIAL_MAX_K = DATA_MAX_K;
 
 /** One state in flow order, with the gas there and how the flow got to it. */
 interface StateRecord {
@@ -86,6 +88,175 @@ function numbered(label: string, i: number, count: number): string {
   return count > 1 ? `${label} ${i}` : label;
 }
 
+/** What the hot section needs, fixed for one evaluation. */
+interface HotContext {
+  readonly r: ResolvedInput;
+  readonly airGas: GasModel;
+  /** The inlet air as a stream, when fuel burns in it (combustion mode); otherwise null. */
+  readonly airStream: GasStream | null;
+  readonly fuel: Fuel | null;
+  readonly turbineInletKPa: number;
+  readonly expansionRatio: number;
+  readonly turbineLabels: readonly string[];
+  readonly reheaterLabels: readonly string[];
+  /** Combustion mode: inlet air enthalpy at the turbine inlet temperature (kJ/kg), and the
+   * heat released per kg of fuel whose products leave at the turbine inlet and at the
+   * reheat temperature (kJ/kg); fixed for the evaluation, so computed once. */
+  readonly airEnthalpyAtTurbineInlet: number;
+  readonly releaseToTurbineInlet: number;
+  readonly releaseToReheat: number;
+}
+
+// Labels by part name, then by stage count; filled on first use. A string key would cost
+// a string build per lookup, several times per evaluation.
+const labelCache: Record<string, (readonly string[])[]> = {};
+
+/** Labels "turbine 1 exit", … for `count` stages (index 1…count), made once per name and count. */
+function stageLabels(name: string, count: number, suffix: string): readonly string[] {
+  const byCount = (labelCache[name] ??= []);
+  let labels = byCount[count];
+  if (!labels) {
+    const made = [''];
+    for (let i = 1; i <= count; i++) made.push(numbered(name, i, count) + suffix);
+    labels = byCount[count] = made;
+  }
+  return labels;
+}
+
+/**
+ * Combustor, turbine stages and reheaters for a given combustor inlet temperature (K).
+ * A module function rather than a closure in evaluateStagedCycle: it runs several times
+ * per evaluation, and a closure would be re-created (and re-named by the transpiler) on
+ * every call.
+ */
+function hotSection(c: HotContext, combustorInletK: number, combustorInletEnthalpy: number): HotSection {
+  const r = c.r;
+  const fuel = c.fuel;
+  const m = r.turbineStages;
+  const out: StateRecord[] = [];
+  let stream: GasStream | null = null;
+  let gas: GasModel = c.airGas;
+  let mass = 1;
+  if (c.airStream && fuel) {
+    // Per kg of inlet air the air stream's enthalpy is its specific enthalpy.
+    const outcome =
+      r.turbineInletTemperatureK > combustorInletK
+        ? burnForRise(c.airStream, c.airEnthalpyAtTurbineInlet - combustorInletEnthalpy, c.releaseToTurbineInlet, fuel)
+        : NOT_ABOVE_INLET;
+    stream = burnOrThrow(outcome, 'turbine.inletTemperatureK', 'The turbine inlet temperature', combustorInletK, r.turbineInletTemperatureK);
+    gas = stream.gas;
+    mass = stream.mass;
+  }
+  let state = stateAt(gas, r.turbineInletTemperatureK, c.turbineInletKPa);
+  out.push({ label: 'combustor exit', state, gas, mass, process: 'heat-addition', burnt: stream !== null });
+  let turbineWorkKJ = 0;
+  let reheatHeatKJ = 0;
+  for (let j = 1; j <= m; j++) {
+    const exit = expand(gas, state, c.expansionRatio, r.turbineEfficiency);
+    checkStageTemperature(exit.temperatureK, 'turbine', j);
+    turbineWorkKJ += mass * (state.enthalpyKJPerKg - exit.enthalpyKJPerKg);
+    out.push({ label: c.turbineLabels[j], state: exit, gas, mass, process: 'expansion', burnt: false });
+    state = exit;
+    if (j < m) {
+      if (!(r.reheatTemperatureK > exit.temperatureK)) {
+        throw new EngineInputError(
+          'turbine.reheatTemperatureK',
+          `The reheat temperature (${r.reheatTemperatureK} K) must be above the turbine ${j} exit temperature (${exit.temperatureK.toFixed(1)} K).`,
+        );
+      }
+      if (stream && fuel) {
+        // The reheat temperature is above the exit (checked just above).
+        const rise = mass * (gas.enthalpyKJPerKg(r.reheatTemperatureK) - exit.enthalpyKJPerKg);
+        const outcome = burnForRise(stream, rise, c.releaseToReheat, fuel);
+        stream = burnOrThrow(outcome, 'turbine.reheatTemperatureK', 'The reheat temperature', exit.temperatureK, r.reheatTemperatureK);
+        gas = stream.gas;
+        mass = stream.mass;
+      }
+      const reheated = changeTemperature(gas, exit, r.reheatTemperatureK, r.reheaterPressureLoss);
+      if (!stream) reheatHeatKJ += reheated.enthalpyKJPerKg - exit.enthalpyKJPerKg;
+      out.push({ label: c.reheaterLabels[j], state: reheated, gas, mass, process: 'heat-addition', burnt: stream !== null });
+      state = reheated;
+    }
+  }
+  return { records: out, turbineWorkKJ, reheatHeatKJ, fuelKg: stream ? stream.fuelBurnt : 0, last: out[out.length - 1] };
+}
+
+interface RegeneratedPass {
+  readonly hot: HotSection;
+  readonly regenerator: RegeneratorOutcome;
+}
+
+/** One pass of the hot section at a combustor inlet temperature, then the regenerator it feeds. */
+function regeneratedPass(c: HotContext, compressorExit: FlowState, combustorInletK: number): RegeneratedPass {
+  const regenerator = c.r.regenerator!;
+  const hot = hotSection(c, combustorInletK, c.airGas.enthalpyKJPerKg(combustorInletK));
+  const outcome = regenerate(
+    {
+      coldGas: c.airGas,
+      coldInlet: compressorExit,
+      coldMass: 1,
+      hotGas: hot.last.gas,
+      hotInlet: hot.last.state,
+      hotMass: hot.last.mass,
+    },
+    regenerator.effectiveness,
+    regenerator.airSidePressureLoss,
+    regenerator.gasSidePressureLoss,
+  );
+  return { hot, regenerator: outcome };
+}
+
+/**
+ * Typical slope of the regenerator cold outlet with respect to the combustor inlet
+ * temperature in combustion mode (a hotter inlet burns less fuel, so the exhaust and the
+ * cold outlet run slightly cooler): about −0.01 over the cases the board meets. It only
+ * shapes the first step of the iteration below; any value below 1 converges.
+ */
+const TYPICAL_COUPLING_SLOPE = -0.01;
+/** The cold outlet is closed to 1e-11 relative (about 1e-8 K): the energy balance then
+ * closes far better than 1e-9. */
+const COUPLING_RELATIVE_TOLERANCE = 1e-11;
+
+/**
+ * Combustion mode with a regenerator: finds the combustor inlet temperature x that the
+ * regenerator delivers, x = F(x), where F runs the hot section and the regenerator. F is
+ * nearly linear with a small negative slope, so: one pass at the compressor exit
+ * temperature, a first step using the typical slope, then secant steps. That takes four
+ * passes of the turbine train where plain secant steps from the same start take five.
+ * The pass whose cold outlet meets its own inlet within the tolerance is the result.
+ */
+function coupledHotSection(c: HotContext, compressorExit: FlowState): RegeneratedPass {
+  const start = Math.min(compressorExit.temperatureK, c.r.turbineInletTemperatureK - 1);
+  let x = start;
+  let pass = regeneratedPass(c, compressorExit, x);
+  let g = pass.regenerator.coldOutlet.temperatureK - x;
+  let xPrevious = x;
+  let gPrevious = g;
+  x += g / (1 - TYPICAL_COUPLING_SLOPE);
+  for (let iteration = 0; iteration < 50; iteration++) {
+    if (Math.abs(g) <= COUPLING_RELATIVE_TOLERANCE * xPrevious) break;
+    pass = regeneratedPass(c, compressorExit, x);
+    g = pass.regenerator.coldOutlet.temperatureK - x;
+    if (Math.abs(g) <= COUPLING_RELATIVE_TOLERANCE * x) break;
+    const slope = (g - gPrevious) / (x - xPrevious);
+    // A flat or non-finite secant means g is not behaving linearly: take a plain fixed-point step.
+    const next = slope < 0 || slope > 0 ? x - g / slope : x + g;
+    xPrevious = x;
+    gPrevious = g;
+    x = Number.isFinite(next) ? next : x + g;
+  }
+  return pass;
+}
+
+const NOT_ABOVE_INLET: BurnOutcome = { ok: false, reason: 'not-above-inlet', fuelKg: 0 };
+
+function checkStageTemperature(temperatureK: number, part: 'compressor' | 'turbine', stage: number): void {
+  // The message is built only on failure: this runs for every stage of every pass.
+  if (!(temperatureK >= POLYNOMIAL_MIN_K && temperatureK <= POLYNOMIAL_MAX_K)) {
+    checkTemperature(temperatureK, 'compressor.pressureRatio', `The ${part} ${stage} exit temperature`);
+  }
+}
+
 /**
  * Evaluates the general staged cycle (see README): N-stage intercooled compression,
  * optional regenerator, combustor, M-stage expansion with reheat, exhaust to ambient.
@@ -110,11 +281,13 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
   const stageRatio = Math.pow(r.pressureRatio / Math.pow(1 - r.intercoolerPressureLoss, n - 1), 1 / n);
   let compressorWorkKJ = 0;
   let current = inlet;
+  const compressorLabels = stageLabels('compressor', n, ' exit');
+  const intercoolerLabels = stageLabels('intercooler', n, ' exit');
   for (let i = 1; i <= n; i++) {
     const exit = compress(airGas, current, stageRatio, r.compressorEfficiency);
-    checkTemperature(exit.temperatureK, 'compressor.pressureRatio', `The compressor ${i} exit temperature`);
+    checkStageTemperature(exit.temperatureK, 'compressor', i);
     compressorWorkKJ += exit.enthalpyKJPerKg - current.enthalpyKJPerKg;
-    records.push({ label: numbered('compressor', i, n) + ' exit', state: exit, gas: airGas, mass: 1, process: 'compression', burnt: false });
+    records.push({ label: compressorLabels[i], state: exit, gas: airGas, mass: 1, process: 'compression', burnt: false });
     current = exit;
     if (i < n) {
       if (r.intercoolTemperatureK > exit.temperatureK && i === 1) {
@@ -125,7 +298,7 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
         });
       }
       const cooled = changeTemperature(airGas, exit, r.intercoolTemperatureK, r.intercoolerPressureLoss);
-      records.push({ label: `intercooler ${i} exit`, state: cooled, gas: airGas, mass: 1, process: 'heat-rejection', burnt: false });
+      records.push({ label: intercoolerLabels[i], state: cooled, gas: airGas, mass: 1, process: 'heat-rejection', burnt: false });
       current = cooled;
     }
   }
@@ -149,48 +322,18 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
     );
   }
 
-  /** Combustor, turbine stages and reheaters for a given combustor inlet temperature. */
-  const hotSection = (combustorInletK: number): HotSection => {
-    const out: StateRecord[] = [];
-    let stream: GasStream | null = null;
-    let gas: GasModel = airGas;
-    let mass = 1;
-    if (combustion && air && fuel) {
-      const outcome = burnToTemperature(air.stream, combustorInletK, r.turbineInletTemperatureK, fuel, r.fuel!.temperatureK);
-      stream = burnOrThrow(outcome, 'turbine.inletTemperatureK', 'The turbine inlet temperature', combustorInletK, r.turbineInletTemperatureK);
-      gas = stream.gas;
-      mass = stream.mass;
-    }
-    let state = stateAt(gas, r.turbineInletTemperatureK, turbineInletKPa);
-    out.push({ label: 'combustor exit', state, gas, mass, process: 'heat-addition', burnt: combustion });
-    let turbineWorkKJ = 0;
-    let reheatHeatKJ = 0;
-    for (let j = 1; j <= m; j++) {
-      const exit = expand(gas, state, expansionRatio, r.turbineEfficiency);
-      checkTemperature(exit.temperatureK, 'compressor.pressureRatio', `The turbine ${j} exit temperature`);
-      turbineWorkKJ += mass * (state.enthalpyKJPerKg - exit.enthalpyKJPerKg);
-      out.push({ label: numbered('turbine', j, m) + ' exit', state: exit, gas, mass, process: 'expansion', burnt: false });
-      state = exit;
-      if (j < m) {
-        if (!(r.reheatTemperatureK > exit.temperatureK)) {
-          throw new EngineInputError(
-            'turbine.reheatTemperatureK',
-            `The reheat temperature (${r.reheatTemperatureK} K) must be above the turbine ${j} exit temperature (${exit.temperatureK.toFixed(1)} K).`,
-          );
-        }
-        if (stream && fuel) {
-          const outcome = burnToTemperature(stream, exit.temperatureK, r.reheatTemperatureK, fuel, r.fuel!.temperatureK);
-          stream = burnOrThrow(outcome, 'turbine.reheatTemperatureK', 'The reheat temperature', exit.temperatureK, r.reheatTemperatureK);
-          gas = stream.gas;
-          mass = stream.mass;
-        }
-        const reheated = changeTemperature(gas, exit, r.reheatTemperatureK, r.reheaterPressureLoss);
-        if (!stream) reheatHeatKJ += reheated.enthalpyKJPerKg - exit.enthalpyKJPerKg;
-        out.push({ label: `reheater ${j} exit`, state: reheated, gas, mass, process: 'heat-addition', burnt: stream !== null });
-        state = reheated;
-      }
-    }
-    return { records: out, turbineWorkKJ, reheatHeatKJ, fuelKg: stream ? stream.fuelBurnt : 0, last: out[out.length - 1] };
+  const hotContext: HotContext = {
+    r,
+    airGas,
+    airStream: combustion && air ? air.stream : null,
+    fuel: combustion ? fuel : null,
+    turbineInletKPa,
+    expansionRatio,
+    turbineLabels: stageLabels('turbine', m, ' exit'),
+    reheaterLabels: stageLabels('reheater', m, ' exit'),
+    airEnthalpyAtTurbineInlet: combustion ? airGas.enthalpyKJPerKg(r.turbineInletTemperatureK) : 0,
+    releaseToTurbineInlet: combustion && fuel ? fuelRelease(fuel, r.fuel!.temperatureK, r.turbineInletTemperatureK) : 0,
+    releaseToReheat: combustion && fuel ? fuelRelease(fuel, r.fuel!.temperatureK, r.reheatTemperatureK) : 0,
   };
 
   let hot: HotSection;
@@ -198,41 +341,16 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
   let coldOut: FlowState | null = null;
   let hotOut: FlowState | null = null;
   if (regenerator) {
-    let lastHot: HotSection | null = null;
-    const regenerateAt = (combustorInletK: number): number => {
-      lastHot = hotSection(combustorInletK);
-      const result = regenerate(
-        {
-          coldGas: airGas,
-          coldInlet: compressorExit,
-          coldMass: 1,
-          hotGas: lastHot.last.gas,
-          hotInlet: lastHot.last.state,
-          hotMass: lastHot.last.mass,
-        },
-        regenerator.effectiveness,
-        regenerator.airSidePressureLoss,
-        regenerator.gasSidePressureLoss,
-      );
-      coldOut = result.coldOutlet;
-      hotOut = result.hotOutlet;
-      regeneratorDutyKJ = result.dutyKJ;
-      return result.coldOutlet.temperatureK;
-    };
-    if (combustion) {
-      // The exhaust composition depends on the fuel burnt, which depends on the
-      // regenerator's cold outlet: a weakly coupled loop, closed by a secant iteration.
-      const start = Math.min(compressorExit.temperatureK, r.turbineInletTemperatureK - 1);
-      // 1e-11 relative on the cold outlet (about 1e-8 K) keeps the energy balance closed to
-      // far better than 1e-9 while saving a pass of the hot section.
-      solveFixedPoint(regenerateAt, start, 1e-11);
-    } else {
-      // In the air modes the turbine train does not depend on the combustor inlet.
-      regenerateAt(compressorExit.temperatureK);
-    }
-    hot = lastHot!;
+    // In the air modes the turbine train does not depend on the combustor inlet: one pass.
+    // In combustion mode the exhaust composition depends on the fuel burnt, which depends
+    // on the regenerator's cold outlet: a weakly coupled loop, closed by coupledHotSection.
+    const closed = combustion ? coupledHotSection(hotContext, compressorExit) : regeneratedPass(hotContext, compressorExit, compressorExit.temperatureK);
+    hot = closed.hot;
+    coldOut = closed.regenerator.coldOutlet;
+    hotOut = closed.regenerator.hotOutlet;
+    regeneratorDutyKJ = closed.regenerator.dutyKJ;
   } else {
-    hot = hotSection(compressorExit.temperatureK);
+    hot = hotSection(hotContext, compressorExit.temperatureK, compressorExit.enthalpyKJPerKg);
   }
   const combustorInlet: FlowState = coldOut ?? compressorExit;
   if (!(r.turbineInletTemperatureK > combustorInlet.temperatureK)) {

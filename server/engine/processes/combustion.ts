@@ -14,6 +14,8 @@ const H2O = 4;
 const CH4 = 5;
 const H2 = 6;
 const LHV_REFERENCE_K = 298.15;
+// Local copy: an imported binding is a getter once transpiled, and this one is read in a loop.
+const LENGTH = EXTENSIVE_LENGTH;
 
 /**
  * A methane–hydrogen fuel gas, burnt completely:
@@ -101,7 +103,27 @@ export type BurnOutcome =
 export function burnToTemperature(stream: GasStream, inletK: number, outletK: number, fuel: Fuel, fuelK: number): BurnOutcome {
   if (!(outletK > inletK)) return { ok: false, reason: 'not-above-inlet', fuelKg: 0 };
   const rise = enthalpyOfCoefficients(stream.coefficients, outletK) - enthalpyOfCoefficients(stream.coefficients, inletK);
-  const release = enthalpyOfCoefficients(fuel.fuelCoefficients, fuelK) - enthalpyOfCoefficients(fuel.changeCoefficients, outletK);
+  return burnForRise(stream, rise, fuelRelease(fuel, fuelK, outletK), fuel);
+}
+
+/**
+ * Heat the burnt fuel gives the gas per kg when its products leave at `outletK`:
+ * h_f(T_f) − Σ νᵢ hᵢ(T_out), kJ per kg of fuel (the denominator above). 200–6000 K.
+ */
+export function fuelRelease(fuel: Fuel, fuelK: number, outletK: number): number {
+  return enthalpyOfCoefficients(fuel.fuelCoefficients, fuelK) - enthalpyOfCoefficients(fuel.changeCoefficients, outletK);
+}
+
+/**
+ * burnToTemperature with the two enthalpy terms already known: `riseKJ` = H_s(T_out) −
+ * H_s(T_in) of the stream (kJ per kg of inlet air, positive) and `releaseKJ` =
+ * fuelRelease(…). The cycle knows both, and the burner outlet temperatures are fixed, so
+ * this saves the polynomial evaluations (each with a logarithm) on every pass of the
+ * regenerator loop. The caller checks that the outlet is above the inlet.
+ */
+export function burnForRise(stream: GasStream, riseKJ: number, releaseKJ: number, fuel: Fuel): BurnOutcome {
+  const rise = riseKJ;
+  const release = releaseKJ;
   const fuelKg = rise / release;
   const change = fuel.changePerKg;
   if (!(release > 0) || !(stream.amounts[O2] + fuelKg * change[O2] >= 0)) {
@@ -120,8 +142,8 @@ export function burnToTemperature(stream: GasStream, inletK: number, outletK: nu
   ];
   const c = stream.coefficients;
   const d = fuel.changeCoefficients;
-  const coefficients: number[] = [];
-  for (let k = 0; k < EXTENSIVE_LENGTH; k++) coefficients.push(c[k] + fuelKg * d[k]);
+  const coefficients: number[] = new Array(LENGTH);
+  for (let k = 0; k < LENGTH; k++) coefficients[k] = c[k] + fuelKg * d[k];
   const mass = stream.mass + fuelKg;
   return {
     ok: true,

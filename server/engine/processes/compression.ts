@@ -12,7 +12,9 @@ export function compress(gas: GasModel, inlet: FlowState, pressureRatio: number,
   const isentropicExitK = isentropicExitTemperature(gas, inlet.temperatureK, pressureRatio);
   const isentropicEnthalpy = gas.enthalpyKJPerKg(isentropicExitK);
   const exitEnthalpy = inlet.enthalpyKJPerKg + (isentropicEnthalpy - inlet.enthalpyKJPerKg) / isentropicEfficiency;
-  return stateFromEnthalpy(gas, exitEnthalpy, exitPressureKPa, isentropicExitK);
+  // Seed T(h) one linear step from the isentropic exit (cp there needs no logarithm): saves a Newton step.
+  const guessK = isentropicExitK + (exitEnthalpy - isentropicEnthalpy) / gas.cpKJPerKgK(isentropicExitK);
+  return stateFromEnthalpy(gas, exitEnthalpy, exitPressureKPa, guessK);
 }
 
 /**

@@ -13,5 +13,7 @@ export function expand(gas: GasModel, inlet: FlowState, expansionRatio: number, 
   const isentropicExitK = isentropicExitTemperature(gas, inlet.temperatureK, 1 / expansionRatio);
   const isentropicEnthalpy = gas.enthalpyKJPerKg(isentropicExitK);
   const exitEnthalpy = inlet.enthalpyKJPerKg - isentropicEfficiency * (inlet.enthalpyKJPerKg - isentropicEnthalpy);
-  return stateFromEnthalpy(gas, exitEnthalpy, exitPressureKPa, isentropicExitK);
+  // Seed T(h) one linear step from the isentropic exit (cp there needs no logarithm): saves a Newton step.
+  const guessK = isentropicExitK + (exitEnthalpy - isentropicEnthalpy) / gas.cpKJPerKgK(isentropicExitK);
+  return stateFromEnthalpy(gas, exitEnthalpy, exitPressureKPa, guessK);
 }

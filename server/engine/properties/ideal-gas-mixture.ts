@@ -187,18 +187,30 @@ export class IdealGasMixture implements GasModel {
   }
 
   // One loop for both inversions; written out rather than through a generic solver with
-  // closures because it runs a dozen times per cycle evaluation.
+  // closures because it runs a dozen times per cycle evaluation. Value and slope come from
+  // one pass over the coefficients (sharing 1/T and ln T), the costly part of each step.
   private invert(target: number, guessK: number, entropy: boolean): number {
     let lo = INVERSION_MIN_K;
     let hi = INVERSION_MAX_K;
     let t = guessK > lo && guessK < hi ? guessK : 800;
     for (let iteration = 0; iteration < 200; iteration++) {
-      const value = entropy ? this.standardEntropyKJPerKgK(t) : this.enthalpyKJPerKg(t);
+      const c = t < BREAK_K ? this.low : this.high;
+      const u = 1 / t;
+      const lnT = Math.log(t);
+      const cp = (c[0] * u + c[1]) * u + c[2] + t * (c[3] + t * (c[4] + t * (c[5] + t * c[6])));
+      let value: number;
+      let slope: number;
+      if (entropy) {
+        value = (c[15] * u + c[16]) * u + c[17] * lnT + t * (c[18] + t * (c[19] + t * (c[20] + t * c[21]))) + c[22];
+        slope = cp * u;
+      } else {
+        value = c[7] * u + c[8] * lnT + t * (c[9] + t * (c[10] + t * (c[11] + t * (c[12] + t * c[13])))) + c[14];
+        slope = cp;
+      }
       const residual = value - target;
       if (residual > 0) hi = t;
       else lo = t;
       if (residual === 0) return t;
-      const slope = entropy ? this.cpKJPerKgK(t) / t : this.cpKJPerKgK(t);
       let next = t - residual / slope;
       // Converged once the Newton step is at rounding level, whichever side it falls on.
       if (Math.abs(next - t) <= INVERSION_RELATIVE_TOLERANCE * t) return next;
