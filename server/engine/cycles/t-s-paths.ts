@@ -49,11 +49,17 @@ export function isobarPath(
   const temperatureK: number[] = new Array(points);
   const entropyKJPerKgK: number[] = new Array(points);
   const last = points - 1;
+  // s = s°(T) − R ln(p/p0) with p linear in the fraction: where the part has no loss the
+  // pressure term is one constant, which saves a logarithm per point.
+  const lossless = a.pressureKPa === b.pressureKPa;
+  const pressureTerm = gas.entropyKJPerKgK(a.temperatureK, a.pressureKPa) - gas.standardEntropyKJPerKgK(a.temperatureK);
   for (let j = 0; j <= last; j++) {
     const fraction = j / last;
     const t = a.temperatureK + (b.temperatureK - a.temperatureK) * fraction;
     temperatureK[j] = t;
-    entropyKJPerKgK[j] = gas.entropyKJPerKgK(t, a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction);
+    entropyKJPerKgK[j] = lossless
+      ? gas.standardEntropyKJPerKgK(t) + pressureTerm
+      : gas.entropyKJPerKgK(t, a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction);
   }
   entropyKJPerKgK[0] = a.entropyKJPerKgK;
   entropyKJPerKgK[last] = b.entropyKJPerKgK;
