@@ -46,7 +46,12 @@ export async function isEmpty(db: Database): Promise<boolean> {
 /** Writes the demo team, its five members (one per role) and two reviews. */
 export async function seedDemo(db: Database) {
   // Sign-ups go through better-auth so the passwords are hashed exactly as at sign-up.
-  const auth = createAuth({ db, baseURL: 'http://127.0.0.1', secret: 'seed-only-secret-not-used-for-sessions', mailer: { async send() {} } });
+  const auth = createAuth({
+    db,
+    baseURL: 'http://127.0.0.1',
+    secret: 'seed-only-secret-not-used-for-sessions',
+    mailer: { async send() {} },
+  });
   const ids: Record<TeamRole, string> = {} as Record<TeamRole, string>;
   for (const u of demoUsers) {
     const res = await auth.api.signUpEmail({ body: { name: u.name, email: u.email, password: demoPassword } });
@@ -54,16 +59,26 @@ export async function seedDemo(db: Database) {
   }
   const teamId = crypto.randomUUID();
   await db.transaction(async (tx) => {
-    await tx.insert(organization).values({ id: teamId, name: demoTeam.name, slug: demoTeam.slug, createdAt: new Date() });
+    await tx
+      .insert(organization)
+      .values({ id: teamId, name: demoTeam.name, slug: demoTeam.slug, createdAt: new Date() });
     await tx.insert(member).values(
-      demoUsers.map((u) => ({ id: crypto.randomUUID(), organizationId: teamId, userId: ids[u.role], role: u.role, createdAt: new Date() })),
+      demoUsers.map((u) => ({
+        id: crypto.randomUUID(),
+        organizationId: teamId,
+        userId: ids[u.role],
+        role: u.role,
+        createdAt: new Date(),
+      })),
     );
     for (const r of demoReviews) {
       const [created] = await tx
         .insert(review)
         .values({ teamId, name: r.name, summary: r.summary, createdById: ids.lead })
         .returning({ id: review.id });
-      await tx.insert(activity).values({ teamId, reviewId: created.id, actorId: ids.lead, kind: 'review.created', detail: { name: r.name } });
+      await tx
+        .insert(activity)
+        .values({ teamId, reviewId: created.id, actorId: ids.lead, kind: 'review.created', detail: { name: r.name } });
     }
   });
   return { teamId };

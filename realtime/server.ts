@@ -29,7 +29,11 @@ function failure(error: unknown) {
 /** Wraps a handler: validates the payload, checks access, answers the ack with ok or an error. */
 function handle<P>(
   socket: Socket,
-  schema: { safeParse(v: unknown): { success: true; data: P } | { success: false; error: { issues: Array<{ message: string }> } } },
+  schema: {
+    safeParse(
+      v: unknown,
+    ): { success: true; data: P } | { success: false; error: { issues: Array<{ message: string }> } };
+  },
   run: (payload: P) => Promise<void>,
 ) {
   return async (raw: unknown, ack?: Ack) => {
@@ -49,7 +53,10 @@ function handle<P>(
 }
 
 /** Attaches socket.io to the HTTP server: session from the cookie, rooms per team. */
-export function attachRealtime(httpServer: HttpServer, { db, auth, origin }: { db: Database; auth: Auth; origin: string }) {
+export function attachRealtime(
+  httpServer: HttpServer,
+  { db, auth, origin }: { db: Database; auth: Auth; origin: string },
+) {
   const io: RealtimeServer = new Server(httpServer, {
     cors: { origin, credentials: true },
     maxHttpBufferSize: 64 * 1024,

@@ -1,13 +1,19 @@
 import { apiErrorFromAuth } from '@/components/data/api-error';
 
-type AuthResult<T> = { data: T | null; error: { code?: string; message?: string; status: number; statusText?: string } | null };
+type AuthResult<T> = {
+  data: T | null;
+  error: { code?: string; message?: string; status: number; statusText?: string } | null;
+};
 
 /**
  * Unwraps a better-auth client call: returns data, or throws our ApiError so auth
  * failures are presented like every other API failure. `field` names the form field a
  * failure belongs to when the code says so (e.g. a taken e-mail).
  */
-export async function authCall<T>(call: Promise<AuthResult<T>>, fieldFor?: (code: string) => string | undefined): Promise<T> {
+export async function authCall<T>(
+  call: Promise<AuthResult<T>>,
+  fieldFor?: (code: string) => string | undefined,
+): Promise<T> {
   const result = await call;
   if (result.error) {
     const code = (result.error.code ?? '').toUpperCase();

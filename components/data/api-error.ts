@@ -11,7 +11,14 @@ export class ApiError extends Error {
   readonly fieldErrors: Record<string, string[]>;
   readonly requestId?: string;
 
-  constructor(init: { status: number; code: string; message: string; field?: string; fieldErrors?: Record<string, string[]>; requestId?: string }) {
+  constructor(init: {
+    status: number;
+    code: string;
+    message: string;
+    field?: string;
+    fieldErrors?: Record<string, string[]>;
+    requestId?: string;
+  }) {
     super(init.message);
     this.name = 'ApiError';
     this.status = init.status;
@@ -40,20 +47,34 @@ export function apiErrorFromBody(status: number, body: unknown): ApiError {
   const envelope = body as Partial<ErrorEnvelope> | null;
   if (envelope && typeof envelope === 'object' && envelope.error && typeof envelope.error === 'object') {
     const e = envelope.error;
-    return new ApiError({ status, code: e.code ?? 'error', message: e.message ?? defaultMessage(status), field: e.field, fieldErrors: e.fieldErrors, requestId: e.requestId });
+    return new ApiError({
+      status,
+      code: e.code ?? 'error',
+      message: e.message ?? defaultMessage(status),
+      field: e.field,
+      fieldErrors: e.fieldErrors,
+      requestId: e.requestId,
+    });
   }
   return new ApiError({ status, code: status === 0 ? 'network' : 'http_' + status, message: defaultMessage(status) });
 }
 
 /** better-auth's client answers `{ data, error }` with `error = { code?, message?, status }`. */
-export function apiErrorFromAuth(error: { code?: string; message?: string; status?: number; statusText?: string }, field?: string): ApiError {
+export function apiErrorFromAuth(
+  error: { code?: string; message?: string; status?: number; statusText?: string },
+  field?: string,
+): ApiError {
   const status = error.status ?? 400;
   const message = error.message || error.statusText || defaultMessage(status);
   return new ApiError({ status, code: (error.code ?? 'auth_error').toLowerCase(), message: sentence(message), field });
 }
 
 export function networkError(): ApiError {
-  return new ApiError({ status: 0, code: 'network', message: 'Cannot reach the Cyclemoot server. Check your connection and try again.' });
+  return new ApiError({
+    status: 0,
+    code: 'network',
+    message: 'Cannot reach the Cyclemoot server. Check your connection and try again.',
+  });
 }
 
 function sentence(text: string): string {

@@ -13,7 +13,10 @@ async function request<T>(method: Method, path: string, body?: unknown, signal?:
     response = await fetch(apiOrigin() + path, {
       method,
       credentials: 'include',
-      headers: body === undefined ? { accept: 'application/json' } : { accept: 'application/json', 'content-type': 'application/json' },
+      headers:
+        body === undefined
+          ? { accept: 'application/json' }
+          : { accept: 'application/json', 'content-type': 'application/json' },
       body: body === undefined ? undefined : JSON.stringify(body),
       signal,
     });

@@ -26,7 +26,8 @@ export const invitationKeys = {
 export function useInvitationQuery(invitationId: string | undefined) {
   return useQuery({
     queryKey: invitationKeys.detail(invitationId ?? ''),
-    queryFn: ({ signal }) => api.get<InvitationSummary>(`/api/invitations/${encodeURIComponent(invitationId!)}`, signal),
+    queryFn: ({ signal }) =>
+      api.get<InvitationSummary>(`/api/invitations/${encodeURIComponent(invitationId!)}`, signal),
     staleTime: STALE.minutes.one,
     enabled: !!invitationId,
   });
@@ -38,8 +39,13 @@ export function useAcceptInvitationMutation() {
   return useMutation({
     mutationFn: async ({ invitationId }: { invitationId: string }) => {
       const result = await authCall(authClient.organization.acceptInvitation({ invitationId }));
-      const teamId = (result as { member?: { organizationId?: string }; invitation?: { organizationId?: string } } | null)?.member?.organizationId;
-      return { teamId: teamId ?? (result as { invitation?: { organizationId?: string } } | null)?.invitation?.organizationId ?? null };
+      const teamId = (
+        result as { member?: { organizationId?: string }; invitation?: { organizationId?: string } } | null
+      )?.member?.organizationId;
+      return {
+        teamId:
+          teamId ?? (result as { invitation?: { organizationId?: string } } | null)?.invitation?.organizationId ?? null,
+      };
     },
     onSuccess: async (_, { invitationId }) => {
       await qc.invalidateQueries({ queryKey: meKeys.all });

@@ -48,7 +48,8 @@ export function upsertReviewInCache(qc: QueryClient, review: Review) {
 export function useReviewsQuery(teamId: string | undefined, status: ReviewListStatus) {
   return useQuery({
     queryKey: reviewKeys.list(teamId ?? '', status),
-    queryFn: ({ signal }) => api.get<Review[]>(`/api/teams/${encodeURIComponent(teamId!)}/reviews?status=${status}`, signal),
+    queryFn: ({ signal }) =>
+      api.get<Review[]>(`/api/teams/${encodeURIComponent(teamId!)}/reviews?status=${status}`, signal),
     staleTime: STALE.seconds.thirty,
     enabled: !!teamId,
   });
@@ -67,7 +68,8 @@ export function useReviewQuery(reviewId: string | undefined) {
 export function useCreateReviewMutation(teamId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: CreateReviewInput) => api.post<Review>(`/api/teams/${encodeURIComponent(teamId)}/reviews`, input),
+    mutationFn: (input: CreateReviewInput) =>
+      api.post<Review>(`/api/teams/${encodeURIComponent(teamId)}/reviews`, input),
     onSuccess: (review) => {
       upsertReviewInCache(qc, review);
       void qc.invalidateQueries({ queryKey: activityKeys.team(teamId) });

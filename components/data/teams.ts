@@ -5,8 +5,8 @@ import { authClient } from '@/components/auth/auth-client';
 import type { TeamRole } from '@/server/contracts/roles';
 import { teamSlug, type TeamDetail } from '@/server/contracts/team';
 
-import { api } from './api';
 import { activityKeys } from './activity';
+import { api } from './api';
 import { meKeys } from './me';
 import { STALE } from './stale-times';
 
@@ -34,8 +34,10 @@ export function useCreateTeamMutation() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: async ({ name }: { name: string }) => {
-      const team = await authCall(authClient.organization.create({ name: name.trim(), slug: teamSlug(name, randomTail()) }), (code) =>
-        code.includes('SLUG') || code.includes('NAME') || code.includes('ORGANIZATION_ALREADY') ? 'name' : undefined,
+      const team = await authCall(
+        authClient.organization.create({ name: name.trim(), slug: teamSlug(name, randomTail()) }),
+        (code) =>
+          code.includes('SLUG') || code.includes('NAME') || code.includes('ORGANIZATION_ALREADY') ? 'name' : undefined,
       );
       return team as { id: string; name: string; slug: string };
     },
@@ -46,7 +48,10 @@ export function useCreateTeamMutation() {
 function useTeamChange(teamId: string) {
   const qc = useQueryClient();
   return () =>
-    Promise.all([qc.invalidateQueries({ queryKey: teamKeys.detail(teamId) }), qc.invalidateQueries({ queryKey: activityKeys.team(teamId) })]);
+    Promise.all([
+      qc.invalidateQueries({ queryKey: teamKeys.detail(teamId) }),
+      qc.invalidateQueries({ queryKey: activityKeys.team(teamId) }),
+    ]);
 }
 
 export function useInviteMemberMutation(teamId: string) {
@@ -63,7 +68,8 @@ export function useInviteMemberMutation(teamId: string) {
 export function useCancelInvitationMutation(teamId: string) {
   const refresh = useTeamChange(teamId);
   return useMutation({
-    mutationFn: ({ invitationId }: { invitationId: string }) => authCall(authClient.organization.cancelInvitation({ invitationId })),
+    mutationFn: ({ invitationId }: { invitationId: string }) =>
+      authCall(authClient.organization.cancelInvitation({ invitationId })),
     onSuccess: refresh,
   });
 }
@@ -90,7 +96,8 @@ export function useUpdateMemberRoleMutation(teamId: string) {
 export function useRemoveMemberMutation(teamId: string) {
   const refresh = useTeamChange(teamId);
   return useMutation({
-    mutationFn: ({ memberId }: { memberId: string }) => authCall(authClient.organization.removeMember({ memberIdOrEmail: memberId, organizationId: teamId })),
+    mutationFn: ({ memberId }: { memberId: string }) =>
+      authCall(authClient.organization.removeMember({ memberIdOrEmail: memberId, organizationId: teamId })),
     onSuccess: refresh,
   });
 }

@@ -17,7 +17,15 @@ const keyFor = (userId: string) => `cyclemoot.team.${userId}`;
  * The chosen Team, remembered per user across reloads. Falls back to the first Team when
  * the remembered one is gone (left, removed, or another user on this browser).
  */
-export function CurrentTeamProvider({ userId, teams, children }: { userId: string; teams: TeamMembership[]; children: ReactNode }) {
+export function CurrentTeamProvider({
+  userId,
+  teams,
+  children,
+}: {
+  userId: string;
+  teams: TeamMembership[];
+  children: ReactNode;
+}) {
   const [chosenId, setChosenId] = useState<string | null>(() => readLocal(keyFor(userId)));
   const team = useMemo(() => teams.find((t) => t.id === chosenId) ?? teams[0] ?? null, [teams, chosenId]);
   const selectTeam = useCallback(

@@ -1,5 +1,13 @@
 import type { ReactNode } from 'react';
-import { ActivityIndicator, Pressable, StyleSheet, View, type PressableProps, type StyleProp, type ViewStyle } from 'react-native';
+import {
+  ActivityIndicator,
+  Pressable,
+  StyleSheet,
+  View,
+  type PressableProps,
+  type StyleProp,
+  type ViewStyle,
+} from 'react-native';
 
 import { Text } from './text';
 import { useTheme } from './theme';
@@ -20,7 +28,17 @@ export type ButtonProps = Omit<PressableProps, 'children' | 'style'> & {
 };
 
 /** Every press target of the app: at least 44 px, labelled, keyboard usable (Enter / Space on web). */
-export function Button({ label, accessibilityLabel, variant = 'primary', busy, disabled, icon, small, style, ...rest }: ButtonProps) {
+export function Button({
+  label,
+  accessibilityLabel,
+  variant = 'primary',
+  busy,
+  disabled,
+  icon,
+  small,
+  style,
+  ...rest
+}: ButtonProps) {
   const t = useTheme();
   const inactive = disabled || busy;
   const colours = {

@@ -13,7 +13,10 @@ export type FieldProps = Omit<TextInputProps, 'style'> & {
 };
 
 /** A labelled text input with its error (named for the field) right below it. */
-export const Field = forwardRef<TextInput, FieldProps>(function Field({ label, error, hint, testID, multiline, ...rest }, ref) {
+export const Field = forwardRef<TextInput, FieldProps>(function Field(
+  { label, error, hint, testID, multiline, ...rest },
+  ref,
+) {
   const t = useTheme();
   const [focused, setFocused] = useState(false);
   const border = error ? t.danger : focused ? t.focus : t.hairline;

@@ -33,24 +33,34 @@ export function temperatureCelsius(kelvin: number): Formatted {
 }
 
 export function pressure(kPa: number, system: UnitSystem): Formatted {
-  return system === 'si' ? { value: formatNumber(kPa), unit: 'kPa' } : { value: formatNumber(kPa * 0.1450377), unit: 'psia' };
+  return system === 'si'
+    ? { value: formatNumber(kPa), unit: 'kPa' }
+    : { value: formatNumber(kPa * 0.1450377), unit: 'psia' };
 }
 
 export function power(kW: number, system: UnitSystem): Formatted {
   // Plant power reads in MW in both systems; US customary adds horsepower for drives.
-  return system === 'si' || kW >= 1000 ? { value: formatNumber(kW / 1000), unit: 'MW' } : { value: formatNumber(kW * 1.341022), unit: 'hp' };
+  return system === 'si' || kW >= 1000
+    ? { value: formatNumber(kW / 1000), unit: 'MW' }
+    : { value: formatNumber(kW * 1.341022), unit: 'hp' };
 }
 
 export function massFlow(kgPerS: number, system: UnitSystem): Formatted {
-  return system === 'si' ? { value: formatNumber(kgPerS), unit: 'kg/s' } : { value: formatNumber(kgPerS * 2.204623), unit: 'lb/s' };
+  return system === 'si'
+    ? { value: formatNumber(kgPerS), unit: 'kg/s' }
+    : { value: formatNumber(kgPerS * 2.204623), unit: 'lb/s' };
 }
 
 export function specificWork(kJPerKg: number, system: UnitSystem): Formatted {
-  return system === 'si' ? { value: formatNumber(kJPerKg), unit: 'kJ/kg' } : { value: formatNumber(kJPerKg * 0.4299226), unit: 'Btu/lb' };
+  return system === 'si'
+    ? { value: formatNumber(kJPerKg), unit: 'kJ/kg' }
+    : { value: formatNumber(kJPerKg * 0.4299226), unit: 'Btu/lb' };
 }
 
 export function heatRate(kJPerKWh: number, system: UnitSystem): Formatted {
-  return system === 'si' ? { value: formatNumber(kJPerKWh), unit: 'kJ/kWh' } : { value: formatNumber(kJPerKWh * 0.9478171), unit: 'Btu/kWh' };
+  return system === 'si'
+    ? { value: formatNumber(kJPerKWh), unit: 'kJ/kWh' }
+    : { value: formatNumber(kJPerKWh * 0.9478171), unit: 'Btu/kWh' };
 }
 
 export function elevation(m: number, system: UnitSystem): Formatted {
@@ -66,7 +76,12 @@ export function count(n: number, one: string, many: string): string {
 }
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
-const dateTimeFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
+  day: 'numeric',
+  month: 'short',
+  hour: '2-digit',
+  minute: '2-digit',
+});
 
 export function formatDate(iso: string): string {
   const d = new Date(iso);

@@ -60,7 +60,7 @@ export function PlusIcon({ colour, size = 20 }: IconProps) {
 }
 
 /** The brand mark: a closed loop, heat added on top (copper), heat rejected below (glacier). */
-export function BrandMark({ size = 28, ink = "#1E2327" }: { size?: number; ink?: string }) {
+export function BrandMark({ size = 28, ink = '#1E2327' }: { size?: number; ink?: string }) {
   return (
     <Svg width={size} height={size} viewBox="0 0 32 32" aria-hidden>
       <Path d="M5 22 C 8 10, 20 5, 27 9" stroke="#B8572B" strokeWidth={3} fill="none" strokeLinecap="round" />

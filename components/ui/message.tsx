@@ -17,8 +17,14 @@ const MessageContext = createContext<MessageApi | null>(null);
 export function MessageProvider({ children }: { children: ReactNode }) {
   const [message, setMessage] = useState<Message | null>(null);
   const seq = useRef(0);
-  const show: Show = useCallback((text, options) => setMessage({ id: ++seq.current, text, tone: 'info', action: options?.action }), []);
-  const showError = useCallback((error: unknown) => setMessage({ id: ++seq.current, text: messageFor(error), tone: 'danger' }), []);
+  const show: Show = useCallback(
+    (text, options) => setMessage({ id: ++seq.current, text, tone: 'info', action: options?.action }),
+    [],
+  );
+  const showError = useCallback(
+    (error: unknown) => setMessage({ id: ++seq.current, text: messageFor(error), tone: 'danger' }),
+    [],
+  );
   const api = useMemo(() => ({ show, showError }), [show, showError]);
 
   useEffect(() => {
@@ -43,7 +49,10 @@ function MessageLine({ message, onClose }: { message: Message; onClose: () => vo
         role={message.tone === 'danger' ? 'alert' : 'status'}
         aria-live="polite"
         testID="message-line"
-        style={[styles.line, { backgroundColor: t.text, borderLeftColor: message.tone === 'danger' ? t.danger : t.cold }]}
+        style={[
+          styles.line,
+          { backgroundColor: t.text, borderLeftColor: message.tone === 'danger' ? t.danger : t.cold },
+        ]}
       >
         <Text style={[styles.text, { color: t.surface }]}>{message.text}</Text>
         {message.action ? (
@@ -58,7 +67,14 @@ function MessageLine({ message, onClose }: { message: Message; onClose: () => vo
             }}
           />
         ) : null}
-        <Button label="Dismiss" accessibilityLabel="Dismiss message" variant="inverse" small testID="message-dismiss" onPress={onClose} />
+        <Button
+          label="Dismiss"
+          accessibilityLabel="Dismiss message"
+          variant="inverse"
+          small
+          testID="message-dismiss"
+          onPress={onClose}
+        />
       </View>
     </View>
   );

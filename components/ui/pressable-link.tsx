@@ -1,7 +1,13 @@
 import { useRouter, type Href } from 'expo-router';
 import { Pressable, type PressableProps } from 'react-native';
 
-type ClickLike = { preventDefault?: () => void; metaKey?: boolean; ctrlKey?: boolean; shiftKey?: boolean; button?: number };
+type ClickLike = {
+  preventDefault?: () => void;
+  metaKey?: boolean;
+  ctrlKey?: boolean;
+  shiftKey?: boolean;
+  button?: number;
+};
 
 /**
  * A pressable that is a real link on the web (an <a href>, so middle-click and "open in

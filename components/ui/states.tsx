@@ -9,7 +9,15 @@ import { space } from './tokens';
 
 /** The four states of every screen, in order: error | loading | empty | content. */
 
-export function ErrorState({ error, onRetry, testID = 'error-state' }: { error: unknown; onRetry?: () => void; testID?: string }) {
+export function ErrorState({
+  error,
+  onRetry,
+  testID = 'error-state',
+}: {
+  error: unknown;
+  onRetry?: () => void;
+  testID?: string;
+}) {
   const t = useTheme();
   return (
     <View style={[styles.box, { borderColor: t.danger }]} role="alert" testID={testID}>
@@ -36,7 +44,17 @@ export function LoadingState({ label = 'Loading…' }: { label?: string }) {
   );
 }
 
-export function EmptyState({ title, children, action, testID = 'empty-state' }: { title: string; children?: ReactNode; action?: ReactNode; testID?: string }) {
+export function EmptyState({
+  title,
+  children,
+  action,
+  testID = 'empty-state',
+}: {
+  title: string;
+  children?: ReactNode;
+  action?: ReactNode;
+  testID?: string;
+}) {
   const t = useTheme();
   return (
     <View style={[styles.box, { borderColor: t.hairline, borderStyle: 'dashed' }]} testID={testID}>

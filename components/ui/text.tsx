@@ -23,7 +23,15 @@ function family(weight: Weight, mono: boolean): string {
 }
 
 /** All text of the app goes through here so the faces and colours stay ours. */
-export function Text({ size = 'body', tone = 'default', weight = 'regular', mono = false, align, style, ...rest }: TextProps) {
+export function Text({
+  size = 'body',
+  tone = 'default',
+  weight = 'regular',
+  mono = false,
+  align,
+  style,
+  ...rest
+}: TextProps) {
   const t = useTheme();
   const colour = {
     default: t.text,
@@ -57,7 +65,17 @@ export function Heading({ level = 1, ...rest }: TextProps & { level?: 1 | 2 | 3 
 }
 
 /** A number with its unit; the unit is set in the text face so the figure stands out. */
-export function Quantity({ value, unit, size = 'body', testID }: { value: string; unit: string; size?: TypeSize; testID?: string }) {
+export function Quantity({
+  value,
+  unit,
+  size = 'body',
+  testID,
+}: {
+  value: string;
+  unit: string;
+  size?: TypeSize;
+  testID?: string;
+}) {
   return (
     <Text size={size} testID={testID}>
       <Text size={size} mono>

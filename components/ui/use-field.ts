@@ -1,6 +1,10 @@
 import { useCallback, useState } from 'react';
 
-type Schema = { safeParse(value: unknown): { success: true; data: unknown } | { success: false; error: { issues: Array<{ message: string }> } } };
+type Schema = {
+  safeParse(
+    value: unknown,
+  ): { success: true; data: unknown } | { success: false; error: { issues: Array<{ message: string }> } };
+};
 
 /**
  * One form field checked against the same zod schema the server uses: the message appears

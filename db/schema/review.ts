@@ -13,7 +13,9 @@ export const review = pgTable(
       .references(() => organization.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
     summary: text('summary').notNull().default(''),
-    status: text('status', { enum: ['active', 'archived'] }).notNull().default('active'),
+    status: text('status', { enum: ['active', 'archived'] })
+      .notNull()
+      .default('active'),
     createdById: text('created_by_id').references(() => user.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),

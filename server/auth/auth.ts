@@ -4,8 +4,8 @@ import { organization } from 'better-auth/plugins';
 
 import type { Database } from '@/db/client';
 import * as schema from '@/db/schema';
-import { accessControl, roles } from '@/server/contracts/roles';
 import type { Mailer } from '@/server/auth/mailer';
+import { accessControl, roles } from '@/server/contracts/roles';
 
 export type AuthOptions = {
   db: Database;

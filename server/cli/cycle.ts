@@ -11,7 +11,7 @@ import { readFileSync } from 'node:fs';
 import { stringify } from 'csv-stringify/sync';
 
 import { evaluateRequestSchema } from '@/server/contracts/cycle';
-import { type CycleResult, EngineInputError, evaluateCycle } from '@/server/engine';
+import { EngineInputError, evaluateCycle, type CycleResult } from '@/server/engine';
 import { ApiError, parse } from '@/server/http/errors';
 
 const EXIT_BAD_INPUT = 2;

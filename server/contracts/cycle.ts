@@ -8,10 +8,11 @@ import { z } from 'zod';
  */
 
 const num = (quantity: string) =>
-  z.number({
-    error: (issue) =>
-      issue.input === undefined ? `${quantity} is required.` : `${quantity} must be a number.`,
-  }).finite({ error: `${quantity} must be a finite number.` });
+  z
+    .number({
+      error: (issue) => (issue.input === undefined ? `${quantity} is required.` : `${quantity} must be a number.`),
+    })
+    .finite({ error: `${quantity} must be a finite number.` });
 
 const temperatureK = (quantity: string) =>
   num(quantity)
@@ -19,13 +20,19 @@ const temperatureK = (quantity: string) =>
     .max(6000, { error: `${quantity} must be at most 6000 K (range of the property data).` });
 
 const fraction = (quantity: string) =>
-  num(quantity).min(0, { error: `${quantity} must be at least 0.` }).max(1, { error: `${quantity} must be at most 1.` });
+  num(quantity)
+    .min(0, { error: `${quantity} must be at least 0.` })
+    .max(1, { error: `${quantity} must be at most 1.` });
 
 const efficiency = (quantity: string) =>
-  num(quantity).gt(0, { error: `${quantity} must be above 0.` }).max(1, { error: `${quantity} must be at most 1.` });
+  num(quantity)
+    .gt(0, { error: `${quantity} must be above 0.` })
+    .max(1, { error: `${quantity} must be at most 1.` });
 
 const pressureLoss = (quantity: string) =>
-  num(quantity).min(0, { error: `${quantity} must be at least 0.` }).lt(1, { error: `${quantity} must be below 1 (a fraction of the inlet pressure).` });
+  num(quantity)
+    .min(0, { error: `${quantity} must be at least 0.` })
+    .lt(1, { error: `${quantity} must be below 1 (a fraction of the inlet pressure).` });
 
 const stages = (quantity: string) =>
   num(quantity)
@@ -48,7 +55,11 @@ export const ambientSchema = z
       ctx.addIssue({ code: 'custom', path: ['pressureKPa'], message: 'Give the ambient pressure or the elevation.' });
     }
     if (value.pressureKPa !== undefined && value.elevationM !== undefined) {
-      ctx.addIssue({ code: 'custom', path: ['pressureKPa'], message: 'Give either the ambient pressure or the elevation, not both.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['pressureKPa'],
+        message: 'Give either the ambient pressure or the elevation, not both.',
+      });
     }
   });
 
@@ -113,8 +124,14 @@ export const cycleInputSchema = z
  * ambient and the reheat temperature to the turbine inlet, filled in explicitly. */
 export const evaluateRequestSchema = cycleInputSchema.transform((value) => ({
   ...value,
-  compressor: { ...value.compressor, intercoolTemperatureK: value.compressor.intercoolTemperatureK ?? value.ambient.temperatureK },
-  turbine: { ...value.turbine, reheatTemperatureK: value.turbine.reheatTemperatureK ?? value.turbine.inletTemperatureK },
+  compressor: {
+    ...value.compressor,
+    intercoolTemperatureK: value.compressor.intercoolTemperatureK ?? value.ambient.temperatureK,
+  },
+  turbine: {
+    ...value.turbine,
+    reheatTemperatureK: value.turbine.reheatTemperatureK ?? value.turbine.inletTemperatureK,
+  },
 }));
 
 export const sweepParameterSchema = z.enum(
@@ -158,7 +175,8 @@ export const sweepRequestSchema = z
       .max(1000, { error: 'Number of points must be at most 1000.' }),
   })
   .superRefine((value, ctx) => {
-    if (!(value.to > value.from)) ctx.addIssue({ code: 'custom', path: ['to'], message: 'End of the range must be above its start.' });
+    if (!(value.to > value.from))
+      ctx.addIssue({ code: 'custom', path: ['to'], message: 'End of the range must be above its start.' });
   });
 
 export type CycleInputBody = z.infer<typeof cycleInputSchema>;

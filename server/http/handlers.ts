@@ -50,5 +50,8 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     return;
   }
   console.error(`[http] ${req.method} ${req.originalUrl} failed (request ${requestId}):`, err);
-  send(500, { code: 'internal', message: 'Something went wrong on the server. Try again; if it persists, quote the request id.' });
+  send(500, {
+    code: 'internal',
+    message: 'Something went wrong on the server. Try again; if it persists, quote the request id.',
+  });
 };

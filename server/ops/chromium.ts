@@ -13,5 +13,6 @@ export function ensureChromium() {
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
   const res = spawnSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env });
-  if (res.status !== 0 || !existsSync(chromiumPath)) throw new Error('apt-get install chromium failed; see the output above.');
+  if (res.status !== 0 || !existsSync(chromiumPath))
+    throw new Error('apt-get install chromium failed; see the output above.');
 }

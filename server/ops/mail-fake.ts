@@ -19,7 +19,11 @@ async function answers(url: string) {
  * Starts the local mail fake (maildev) on loopback: SMTP for the server to send to, and
  * a web page + REST API (`/api/email`) where developers and tests read what was sent.
  */
-export async function startMailFake(options: { smtpPort: number; webPort: number; mailDir?: string }): Promise<MailFake> {
+export async function startMailFake(options: {
+  smtpPort: number;
+  webPort: number;
+  mailDir?: string;
+}): Promise<MailFake> {
   const webURL = `http://127.0.0.1:${options.webPort}`;
   if (await answers(`${webURL}/api/healthz`)) {
     throw new Error(
@@ -27,8 +31,14 @@ export async function startMailFake(options: { smtpPort: number; webPort: number
     );
   }
   const args = [
-    '--smtp', String(options.smtpPort), '--ip', '127.0.0.1',
-    '--web', String(options.webPort), '--web-ip', '127.0.0.1',
+    '--smtp',
+    String(options.smtpPort),
+    '--ip',
+    '127.0.0.1',
+    '--web',
+    String(options.webPort),
+    '--web-ip',
+    '127.0.0.1',
     ...(options.mailDir ? ['--mail-directory', options.mailDir] : []),
   ];
   const bin = path.join(repoRoot, 'node_modules', '.bin', 'maildev');

@@ -1,6 +1,15 @@
 import { execFileSync, spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { chmodSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync, appendFileSync, chownSync } from 'node:fs';
+import {
+  appendFileSync,
+  chmodSync,
+  chownSync,
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  writeFileSync,
+} from 'node:fs';
 import path from 'node:path';
 import { setTimeout as sleep } from 'node:timers/promises';
 
@@ -87,8 +96,20 @@ export async function ensureCluster(port = Number(process.env.CYCLEMOOT_PG_PORT 
     giveToPostgres(pwTmp);
     try {
       runPg(bin, 'initdb', [
-        '-D', dataDir, '-U', superUser, '--pwfile', pwTmp, '-E', 'UTF8', '--locale', 'C.UTF-8',
-        '--auth-host', 'scram-sha-256', '--auth-local', 'peer',
+        '-D',
+        dataDir,
+        '-U',
+        superUser,
+        '--pwfile',
+        pwTmp,
+        '-E',
+        'UTF8',
+        '--locale',
+        'C.UTF-8',
+        '--auth-host',
+        'scram-sha-256',
+        '--auth-local',
+        'peer',
       ]);
     } finally {
       spawnSync('rm', ['-f', pwTmp]);
@@ -107,9 +128,14 @@ export async function ensureCluster(port = Number(process.env.CYCLEMOOT_PG_PORT 
     const logFile = path.join(base, 'pg.log');
     if (!existsSync(logFile)) writeFileSync(logFile, '');
     chmodSync(logFile, 0o666);
-    const started = runPg(bin, 'pg_ctl', ['start', '-D', dataDir, '-l', logFile, '-w', '-t', '60', '-o', `-p ${port}`], {
-      allowFail: true,
-    });
+    const started = runPg(
+      bin,
+      'pg_ctl',
+      ['start', '-D', dataDir, '-l', logFile, '-w', '-t', '60', '-o', `-p ${port}`],
+      {
+        allowFail: true,
+      },
+    );
     if (started.status !== 0) {
       const tail = existsSync(logFile) ? readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
       throw new Error(
@@ -152,9 +178,7 @@ async function waitForConnection(url: string, port: number, dataDir: string) {
       await sleep(200);
     }
   }
-  throw new Error(
-    `PostgreSQL is not reachable on 127.0.0.1:${port} (data directory ${dataDir}): ${String(lastError)}`,
-  );
+  throw new Error(`PostgreSQL is not reachable on 127.0.0.1:${port} (data directory ${dataDir}): ${String(lastError)}`);
 }
 
 /** Creates `name` when missing; with `fresh`, drops it first (the test database). */
@@ -177,7 +201,9 @@ export async function dropTestDatabases(cluster: Cluster, drop: (pid: number) =>
   const client = new Client({ connectionString: cluster.url('postgres') });
   await client.connect();
   try {
-    const { rows } = await client.query<{ datname: string }>("select datname from pg_database where datname like 'cyclemoot\\_t%\\_%'");
+    const { rows } = await client.query<{ datname: string }>(
+      "select datname from pg_database where datname like 'cyclemoot\\_t%\\_%'",
+    );
     for (const { datname } of rows) {
       const pid = Number(/^cyclemoot_t(\d+)_/.exec(datname)?.[1]);
       if (pid && drop(pid)) await client.query(`drop database if exists ${datname} with (force)`);

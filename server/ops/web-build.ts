@@ -5,7 +5,18 @@ import path from 'node:path';
 
 import { repoRoot } from './paths';
 
-const inputs = ['app', 'components', 'assets', 'realtime', 'server/contracts', 'app.json', 'metro.config.js', 'babel.config.js', 'tsconfig.json', 'package-lock.json'];
+const inputs = [
+  'app',
+  'components',
+  'assets',
+  'realtime',
+  'server/contracts',
+  'app.json',
+  'metro.config.js',
+  'babel.config.js',
+  'tsconfig.json',
+  'package-lock.json',
+];
 export const webDir = path.join(repoRoot, 'dist');
 const stampFile = path.join(webDir, '.build-stamp');
 
@@ -34,7 +45,12 @@ export function sourceStamp(): string {
 /** Exports the Expo web bundle into dist/ when it is missing or older than its sources. */
 export function ensureWebBuild({ force = false } = {}): { built: boolean; seconds: number } {
   const stamp = sourceStamp();
-  if (!force && existsSync(stampFile) && readFileSync(stampFile, 'utf8') === stamp && existsSync(path.join(webDir, 'index.html'))) {
+  if (
+    !force &&
+    existsSync(stampFile) &&
+    readFileSync(stampFile, 'utf8') === stamp &&
+    existsSync(path.join(webDir, 'index.html'))
+  ) {
     return { built: false, seconds: 0 };
   }
   console.log('[web] building the web app (expo export); the first build takes about a minute…');
@@ -48,7 +64,8 @@ export function ensureWebBuild({ force = false } = {}): { built: boolean; second
       env: { ...process.env, EXPO_OFFLINE: '1', EXPO_NO_TELEMETRY: '1', CI: '1', NODE_ENV: 'production' },
     },
   );
-  if (res.status !== 0) throw new Error(`The web build failed (expo export exited ${res.status}); see the output above.`);
+  if (res.status !== 0)
+    throw new Error(`The web build failed (expo export exited ${res.status}); see the output above.`);
   writeFileSync(stampFile, stamp);
   const seconds = (Date.now() - started) / 1000;
   console.log(`[web] built in ${seconds.toFixed(1)} s`);

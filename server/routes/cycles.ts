@@ -1,4 +1,5 @@
 import { Router } from 'express';
+
 import { evaluateRequestSchema, sweepRequestSchema } from '@/server/contracts/cycle';
 import { EngineInputError, evaluateCycle, sweepCycle } from '@/server/engine';
 import { ApiError, parse } from '@/server/http/errors';

@@ -16,7 +16,10 @@ export function publicRouter({ db }: { db: Database }): Router {
     const started = performance.now();
     try {
       await db.execute(sql`select 1`);
-      res.json({ status: 'ok', database: { ok: true, latencyMs: Math.round((performance.now() - started) * 10) / 10 } });
+      res.json({
+        status: 'ok',
+        database: { ok: true, latencyMs: Math.round((performance.now() - started) * 10) / 10 },
+      });
     } catch (error) {
       res.status(503).json({ status: 'degraded', database: { ok: false, message: String((error as Error).message) } });
     }

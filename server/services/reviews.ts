@@ -48,15 +48,16 @@ export async function getReview(db: Database, reviewId: string): Promise<Review>
 }
 
 export async function listReviews(db: Database, teamId: string, status: ReviewStatus | 'all'): Promise<Review[]> {
-  const where = status === 'all' ? eq(review.teamId, teamId) : and(eq(review.teamId, teamId), eq(review.status, status));
-  const rows = await selectReviews(db)
-    .where(where)
-    .orderBy(asc(review.status), desc(review.updatedAt));
+  const where =
+    status === 'all' ? eq(review.teamId, teamId) : and(eq(review.teamId, teamId), eq(review.status, status));
+  const rows = await selectReviews(db).where(where).orderBy(asc(review.status), desc(review.updatedAt));
   return rows.map(toReview);
 }
 
 function isNameTaken(error: unknown) {
-  const cause = (error as { cause?: { code?: string; constraint?: string } }).cause ?? (error as { code?: string; constraint?: string });
+  const cause =
+    (error as { cause?: { code?: string; constraint?: string } }).cause ??
+    (error as { code?: string; constraint?: string });
   return cause?.code === '23505' && cause.constraint === 'review_team_name_key';
 }
 
@@ -80,7 +81,13 @@ export async function createReview(
         .insert(review)
         .values({ teamId, name: input.name, summary: input.summary, createdById: actorId })
         .returning({ id: review.id });
-      await recordActivity(tx, { teamId, reviewId: created.id, actorId, kind: 'review.created', detail: { name: input.name } });
+      await recordActivity(tx, {
+        teamId,
+        reviewId: created.id,
+        actorId,
+        kind: 'review.created',
+        detail: { name: input.name },
+      });
       return created.id;
     });
   } catch (error) {
@@ -111,7 +118,10 @@ export async function updateReview(
   if (input.status !== undefined && input.status !== before.status) {
     changes.status = input.status;
     changes.archivedAt = input.status === 'archived' ? new Date() : null;
-    events.push({ kind: input.status === 'archived' ? 'review.archived' : 'review.restored', detail: { name: before.name } });
+    events.push({
+      kind: input.status === 'archived' ? 'review.archived' : 'review.restored',
+      detail: { name: before.name },
+    });
   }
   if (events.length === 0) return before;
   try {

@@ -47,7 +47,13 @@ export async function getTeamDetail(db: Database, teamId: string, myRole: TeamRo
     })
     .from(invitation)
     .leftJoin(user, eq(user.id, invitation.inviterId))
-    .where(and(eq(invitation.organizationId, teamId), eq(invitation.status, 'pending'), gt(invitation.expiresAt, new Date())))
+    .where(
+      and(
+        eq(invitation.organizationId, teamId),
+        eq(invitation.status, 'pending'),
+        gt(invitation.expiresAt, new Date()),
+      ),
+    )
     .orderBy(asc(invitation.email));
   return {
     id: team.id,

@@ -2,6 +2,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+
 import { describe, expect, it } from 'vitest';
 
 const root = join(__dirname, '..', '..');
@@ -59,13 +60,19 @@ describe('cycle CLI', () => {
   });
 
   it('exits 2 with the error JSON on a string where a number belongs', () => {
-    const { code, stdout } = run(['-'], JSON.stringify({ ...input, compressor: { ...input.compressor, pressureRatio: '12' } }));
+    const { code, stdout } = run(
+      ['-'],
+      JSON.stringify({ ...input, compressor: { ...input.compressor, pressureRatio: '12' } }),
+    );
     expect(code).toBe(2);
     expect(JSON.parse(stdout).error).toMatchObject({ code: 'invalid_input', field: 'compressor.pressureRatio' });
   });
 
   it('exits 2 naming the field of a physically impossible input', () => {
-    const { code, stdout } = run(['-'], JSON.stringify({ ...input, turbine: { ...input.turbine, inletTemperatureK: 3500 } }));
+    const { code, stdout } = run(
+      ['-'],
+      JSON.stringify({ ...input, turbine: { ...input.turbine, inletTemperatureK: 3500 } }),
+    );
     expect(code).toBe(2);
     const error = JSON.parse(stdout).error;
     expect(error.field).toBe('turbine.inletTemperatureK');
@@ -73,7 +80,10 @@ describe('cycle CLI', () => {
   });
 
   it('names the array element of a bad input', () => {
-    const { code, stdout } = run(['-'], JSON.stringify([input, { ...input, regenerator: { ...input.regenerator, effectiveness: 2 } }]));
+    const { code, stdout } = run(
+      ['-'],
+      JSON.stringify([input, { ...input, regenerator: { ...input.regenerator, effectiveness: 2 } }]),
+    );
     expect(code).toBe(2);
     expect(JSON.parse(stdout).error.field).toBe('1.regenerator.effectiveness');
   });

@@ -51,7 +51,12 @@ async function signUp(page: Page, name: string, email: string) {
 }
 
 /** Opens the invitation link from the mailbox in `page`, signs up as the invitee, accepts. */
-async function acceptByMail(page: Page, email: string, name: string, expect_: { teamName: string; inviter: string; role: string; shot: string }) {
+async function acceptByMail(
+  page: Page,
+  email: string,
+  name: string,
+  expect_: { teamName: string; inviter: string; role: string; shot: string },
+) {
   const mail = await waitForMail(email);
   expect(mail.subject).toContain(expect_.teamName);
   const link = mail.text.match(/https?:\/\/\S+\/invitation\/[\w-]+/)?.[0];
@@ -123,7 +128,8 @@ describe.each(viewports)('first journey at $name size', ({ name: viewport, size 
     expect(await byTestId(page, 'current-team-name').textContent()).toBe(teamName);
     await byTestId(page, 'reviews-empty').waitFor();
     // Phone: bottom bar; wide: side rail. Both carry the same four places.
-    for (const id of ['nav-reviews', 'nav-team', 'nav-activity', 'nav-settings']) expect(await byTestId(page, id).count()).toBe(1);
+    for (const id of ['nav-reviews', 'nav-team', 'nav-activity', 'nav-settings'])
+      expect(await byTestId(page, id).count()).toBe(1);
     const bar = await byTestId(page, 'nav-reviews').boundingBox();
     if (viewport === 'phone') expect(bar!.y).toBeGreaterThan(size.height - 100);
     else expect(bar!.x).toBeLessThan(260);
@@ -137,7 +143,9 @@ describe.each(viewports)('first journey at $name size', ({ name: viewport, size 
     expect(await byTestId(page, 'review-name-input-error').textContent()).toBe('Name needs at least 3 characters.');
     await byTestId(page, 'review-name-input').fill(reviewName);
     expect(await byTestId(page, 'review-name-input-error').count()).toBe(0);
-    await byTestId(page, 'review-summary-input').fill('40 MW net at −20 °C design ambient; simple against recuperated.');
+    await byTestId(page, 'review-summary-input').fill(
+      '40 MW net at −20 °C design ambient; simple against recuperated.',
+    );
     await snap(page, viewport, '04-new-review');
     await byTestId(page, 'create-review-button').click();
 
@@ -204,7 +212,12 @@ describe.each(viewports)('first journey at $name size', ({ name: viewport, size 
     await snap(page, viewport, '08-team-invited');
 
     const guestPage = guest.pages()[0] ?? (await guest.newPage());
-    await acceptByMail(guestPage, engineerEmail, 'Jonas Lie', { teamName, inviter: 'Solveig Aas', role: 'Engineer', shot: `${viewport}-09a-invitation` });
+    await acceptByMail(guestPage, engineerEmail, 'Jonas Lie', {
+      teamName,
+      inviter: 'Solveig Aas',
+      role: 'Engineer',
+      shot: `${viewport}-09a-invitation`,
+    });
     // An Engineer sees the Review but may not create, rename or archive Reviews.
     await expect.poll(() => byTestId(guestPage, 'review-name').allTextContents()).toEqual([renamed]);
     expect(await byTestId(guestPage, 'new-review-button').count()).toBe(0);
@@ -214,7 +227,12 @@ describe.each(viewports)('first journey at $name size', ({ name: viewport, size 
     await byTestId(guestPage, 'nav-settings').click();
     await byTestId(guestPage, 'sign-out-button').click();
     await byTestId(guestPage, 'sign-in-screen').waitFor();
-    await acceptByMail(guestPage, observerEmail, 'Maren Dahl', { teamName, inviter: 'Solveig Aas', role: 'Observer', shot: `${viewport}-09b-invitation-observer` });
+    await acceptByMail(guestPage, observerEmail, 'Maren Dahl', {
+      teamName,
+      inviter: 'Solveig Aas',
+      role: 'Observer',
+      shot: `${viewport}-09b-invitation-observer`,
+    });
     await expect.poll(() => byTestId(guestPage, 'review-name').allTextContents()).toEqual([renamed]);
     expect(await byTestId(guestPage, 'new-review-button').count()).toBe(0);
     expect(await guestPage.locator('[data-testid^="review-rename-"]').count()).toBe(0);

@@ -44,14 +44,22 @@ export async function waitForMail(address: string, timeoutMs = 10_000): Promise<
 }
 
 /** Debian's Chromium through playwright-core, headless, with its own throwaway profile. */
-export async function launchBrowser(viewport = { width: 390, height: 844 }): Promise<BrowserContext & { dispose(): Promise<void> }> {
+export async function launchBrowser(
+  viewport = { width: 390, height: 844 },
+): Promise<BrowserContext & { dispose(): Promise<void> }> {
   const profile = mkdtempSync(path.join(tmpdir(), 'cyclemoot-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: chromiumPath,
     viewport,
     args: [
-      '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-      '--disable-background-networking', '--disable-component-update', '--disable-sync',
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
     ],
   });
   return Object.assign(context, {
@@ -63,4 +71,5 @@ export async function launchBrowser(viewport = { width: 390, height: 844 }): Pro
 }
 
 /** A unique address per test so runs never collide. */
-export const uniqueEmail = (who: string) => `${who}.${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@test.example`;
+export const uniqueEmail = (who: string) =>
+  `${who}.${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@test.example`;

@@ -1,5 +1,5 @@
-import supertest from 'supertest';
 import { io as connect, type Socket } from 'socket.io-client';
+import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import type { ClientToServerEvents, ServerToClientEvents } from '@/realtime/events';
@@ -13,7 +13,9 @@ const sockets: Client[] = [];
 
 async function signUp(name: string) {
   const agent = supertest.agent(server.baseURL).set('Origin', server.baseURL);
-  const res = await agent.post('/api/auth/sign-up/email').send({ name, email: uniqueEmail(name), password: 'correct-horse-battery' });
+  const res = await agent
+    .post('/api/auth/sign-up/email')
+    .send({ name, email: uniqueEmail(name), password: 'correct-horse-battery' });
   const cookie = (res.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
   return { agent, cookie, id: res.body.user.id as string };
 }
@@ -47,7 +49,9 @@ describe('team rooms', () => {
   it('tells every member in the room about a new review, and no outsider', async () => {
     const owner = await signUp('Rita');
     const outsider = await signUp('Uwe');
-    const team = await owner.agent.post('/api/auth/organization/create').send({ name: 'Room team', slug: `room-${Date.now()}` });
+    const team = await owner.agent
+      .post('/api/auth/organization/create')
+      .send({ name: 'Room team', slug: `room-${Date.now()}` });
     const teamId = team.body.id as string;
 
     const ownerSocket = await open(owner.cookie);

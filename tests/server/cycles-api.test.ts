@@ -69,7 +69,11 @@ describe('POST /api/cycles/sweep', () => {
     const eta = res.body.optimumEfficiency.value;
     // Textbook result for the simple cycle: the pressure ratio for most specific work is below that for best efficiency.
     expect(work).toBeLessThan(eta);
-    const sampledBest = Math.max(...res.body.points.filter((p: { figures: unknown }) => p.figures).map((p: { figures: { netWorkKJPerKg: number } }) => p.figures.netWorkKJPerKg));
+    const sampledBest = Math.max(
+      ...res.body.points
+        .filter((p: { figures: unknown }) => p.figures)
+        .map((p: { figures: { netWorkKJPerKg: number } }) => p.figures.netWorkKJPerKg),
+    );
     expect(res.body.optimumNetWork.figures.netWorkKJPerKg).toBeGreaterThanOrEqual(sampledBest - 1e-9);
   });
 

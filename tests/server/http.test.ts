@@ -47,7 +47,9 @@ describe('sign-up', () => {
   it('refuses a taken e-mail and writes nothing', async () => {
     const first = await signUp(ctx.app, 'Taken Mail');
     const before = await ctx.db.$count(user);
-    const res = await agent().post('/api/auth/sign-up/email').send({ name: 'Other', email: first.email, password: 'another-good-password' });
+    const res = await agent()
+      .post('/api/auth/sign-up/email')
+      .send({ name: 'Other', email: first.email, password: 'another-good-password' });
     expect(res.status).toBeGreaterThanOrEqual(400);
     expect(res.status).toBeLessThan(500);
     expect(res.body.message).toMatch(/exist/i);
@@ -56,7 +58,9 @@ describe('sign-up', () => {
 
   it('refuses a weak password and writes nothing', async () => {
     const before = await ctx.db.$count(user);
-    const res = await agent().post('/api/auth/sign-up/email').send({ name: 'Weak', email: 'weak@test.example', password: 'short' });
+    const res = await agent()
+      .post('/api/auth/sign-up/email')
+      .send({ name: 'Weak', email: 'weak@test.example', password: 'short' });
     expect(res.status).toBe(400);
     expect(res.body.message).toMatch(/password/i);
     expect(await ctx.db.$count(user)).toBe(before);
@@ -68,7 +72,10 @@ describe('sign-up', () => {
       .send({ name: 'No Origin', email: `no-origin.${Date.now()}@test.example`, password: 'correct-horse-battery' });
     const cookie = signedUp.headers['set-cookie'] as unknown as string[];
     expect(cookie.length).toBeGreaterThan(0);
-    const res = await supertest(ctx.app).post('/api/auth/sign-out').set('Cookie', cookie).set('Origin', 'http://evil.example');
+    const res = await supertest(ctx.app)
+      .post('/api/auth/sign-out')
+      .set('Cookie', cookie)
+      .set('Origin', 'http://evil.example');
     expect(res.status).toBe(403);
     const fine = await supertest(ctx.app).get('/api/me').set('Cookie', cookie);
     expect(fine.status).toBe(200);

@@ -37,7 +37,10 @@ describe('invitations', () => {
     expect(preview.body).toMatchObject({ email, role: 'engineer', inviterName: 'Ines Owner', status: 'pending' });
 
     const agent = supertest.agent(ctx.app).set('Origin', testOrigin);
-    await agent.post('/api/auth/sign-up/email').send({ name: 'New Comer', email, password: 'correct-horse-battery' }).expect(200);
+    await agent
+      .post('/api/auth/sign-up/email')
+      .send({ name: 'New Comer', email, password: 'correct-horse-battery' })
+      .expect(200);
     const accepted = await agent.post('/api/auth/organization/accept-invitation').send({ invitationId });
     expect(accepted.status).toBe(200);
 
@@ -60,7 +63,9 @@ describe('invitations', () => {
       .post('/api/auth/organization/invite-member')
       .send({ email, role: 'observer', organizationId: teamId });
     const stranger = await signUp(ctx.app, 'Sly Stranger');
-    const res = await stranger.agent.post('/api/auth/organization/accept-invitation').send({ invitationId: invite.body.id });
+    const res = await stranger.agent
+      .post('/api/auth/organization/accept-invitation')
+      .send({ invitationId: invite.body.id });
     expect(res.status).toBeGreaterThanOrEqual(400);
     expect(res.status).toBeLessThan(500);
     expect((await stranger.agent.get('/api/me')).body.teams).toEqual([]);

@@ -48,12 +48,20 @@ export function ActivityScreen() {
   if (activity.error) body = <ErrorState error={activity.error} onRetry={() => void activity.refetch()} />;
   else if (!activity.data) body = <LoadingState label="Loading activity…" />;
   else if (activity.data.length === 0)
-    body = <EmptyState title="Nothing has happened yet">Every change to this Team’s Reviews will be listed here, newest first.</EmptyState>;
+    body = (
+      <EmptyState title="Nothing has happened yet">
+        Every change to this Team’s Reviews will be listed here, newest first.
+      </EmptyState>
+    );
   else
     body = (
       <Card style={styles.list} testID="activity-list">
         {activity.data.map((a, i) => (
-          <View key={a.id} style={[styles.row, i > 0 && { borderTopWidth: 1, borderTopColor: t.hairline }]} testID="activity-item">
+          <View
+            key={a.id}
+            style={[styles.row, i > 0 && { borderTopWidth: 1, borderTopColor: t.hairline }]}
+            testID="activity-item"
+          >
             <View style={[styles.mark, { backgroundColor: a.kind.endsWith('archived') ? t.warning : t.cold }]} />
             <View style={styles.text}>
               <Text>
@@ -64,7 +72,11 @@ export function ActivityScreen() {
                   {formatAgo(a.createdAt)}
                 </Text>
                 {a.reviewId && a.kind !== 'review.archived' ? (
-                  <PressableLink href={`/reviews/${a.reviewId}`} accessibilityLabel={`Open the review ${str(a.detail.name) || ''}`.trim()} style={styles.link}>
+                  <PressableLink
+                    href={`/reviews/${a.reviewId}`}
+                    accessibilityLabel={`Open the review ${str(a.detail.name) || ''}`.trim()}
+                    style={styles.link}
+                  >
                     <Text size="small" tone="cold" weight="medium">
                       Open review
                     </Text>
@@ -86,7 +98,13 @@ export function ActivityScreen() {
 
 const styles = StyleSheet.create({
   list: { padding: 0 },
-  row: { flexDirection: 'row', gap: space[1] + space.half, paddingHorizontal: space[2], paddingTop: space[2], paddingBottom: space.half },
+  row: {
+    flexDirection: 'row',
+    gap: space[1] + space.half,
+    paddingHorizontal: space[2],
+    paddingTop: space[2],
+    paddingBottom: space.half,
+  },
   mark: { width: 8, height: 8, borderRadius: 4, marginTop: 8 },
   text: { flex: 1, gap: space.half },
   metaRow: { flexDirection: 'row', alignItems: 'center', gap: space[2] },

@@ -10,18 +10,33 @@ import { useTheme } from '@/components/ui/theme';
 import { radius, space } from '@/components/ui/tokens';
 
 /** The signed-out pages: brand, one card with the form, what the product is for. */
-export function AuthFrame({ title, lead, children, testID }: { title: string; lead?: ReactNode; children: ReactNode; testID: string }) {
+export function AuthFrame({
+  title,
+  lead,
+  children,
+  testID,
+}: {
+  title: string;
+  lead?: ReactNode;
+  children: ReactNode;
+  testID: string;
+}) {
   const t = useTheme();
   const wide = useIsWide();
   useDocumentTitle(title);
   return (
-    <ScrollView style={{ flex: 1, backgroundColor: t.surface }} contentContainerStyle={[styles.page, wide && styles.pageWide]} keyboardShouldPersistTaps="handled">
+    <ScrollView
+      style={{ flex: 1, backgroundColor: t.surface }}
+      contentContainerStyle={[styles.page, wide && styles.pageWide]}
+      keyboardShouldPersistTaps="handled"
+    >
       <View style={[styles.inner, wide && styles.innerWide]}>
         {wide ? (
           <View style={styles.aside}>
             <Brand />
             <Text size="title" tone="soft" style={{ maxWidth: 420 }}>
-              Set up cycle Candidates for a site, compare them side by side, and record the Team’s decision with its reasons.
+              Set up cycle Candidates for a site, compare them side by side, and record the Team’s decision with its
+              reasons.
             </Text>
             <LoopSketch />
           </View>

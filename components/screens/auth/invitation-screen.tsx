@@ -71,7 +71,11 @@ export function InvitationScreen({ invitationId }: { invitationId: string }) {
         <EmptyState title="This invitation can no longer be used" testID="invitation-closed">
           {why} {inv.status === 'accepted' ? 'Sign in to open the Team.' : 'Ask the Team’s Owner for a new one.'}
         </EmptyState>
-        <TextLink href={session.data ? '/' : '/sign-in'} label={session.data ? 'Go to your Reviews' : 'Go to sign-in'} testID="invitation-onward" />
+        <TextLink
+          href={session.data ? '/' : '/sign-in'}
+          label={session.data ? 'Go to your Reviews' : 'Go to sign-in'}
+          testID="invitation-onward"
+        />
       </AuthFrame>
     );
   }
@@ -128,7 +132,12 @@ function InvitationAction({ inv, signedInEmail }: { inv: InvitationSummary; sign
       <View style={styles.block}>
         <Text tone="soft">You are signed in as {signedInEmail}.</Text>
         {acceptError}
-        <Button label={`Accept and join ${inv.teamName}`} busy={accept.isPending} onPress={() => void acceptAndEnter().catch(() => {})} testID="accept-invitation-button" />
+        <Button
+          label={`Accept and join ${inv.teamName}`}
+          busy={accept.isPending}
+          onPress={() => void acceptAndEnter().catch(() => {})}
+          testID="accept-invitation-button"
+        />
       </View>
     );
   }
@@ -137,7 +146,8 @@ function InvitationAction({ inv, signedInEmail }: { inv: InvitationSummary; sign
     return (
       <View style={styles.block}>
         <Text tone="soft" testID="invitation-wrong-account">
-          You are signed in as {signedInEmail}, but this invitation is for {inv.email}. Sign out, then continue as {inv.email}.
+          You are signed in as {signedInEmail}, but this invitation is for {inv.email}. Sign out, then continue as{' '}
+          {inv.email}.
         </Text>
         <Button
           label="Sign out and continue"
@@ -168,7 +178,11 @@ function InvitationAction({ inv, signedInEmail }: { inv: InvitationSummary; sign
         testID="invitation-mode"
       />
       {acceptError}
-      {mode === 'sign-up' ? <SignUpForm initialEmail={inv.email} onSignedUp={onDone} /> : <SignInForm initialEmail={inv.email} onSignedIn={onDone} />}
+      {mode === 'sign-up' ? (
+        <SignUpForm initialEmail={inv.email} onSignedUp={onDone} />
+      ) : (
+        <SignInForm initialEmail={inv.email} onSignedIn={onDone} />
+      )}
     </View>
   );
 }

@@ -13,7 +13,13 @@ import { space } from '@/components/ui/tokens';
 import { useField } from '@/components/ui/use-field';
 
 /** E-mail and password; a wrong pair is one message for the form (never saying which part was wrong). */
-export function SignInForm({ initialEmail = '', onSignedIn }: { initialEmail?: string; onSignedIn: () => void | Promise<void> }) {
+export function SignInForm({
+  initialEmail = '',
+  onSignedIn,
+}: {
+  initialEmail?: string;
+  onSignedIn: () => void | Promise<void>;
+}) {
   const qc = useQueryClient();
   const email = useField(emailField, initialEmail);
   const password = useField(signInPassword);

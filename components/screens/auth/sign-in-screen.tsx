@@ -27,4 +27,6 @@ export function SignInScreen({ next }: { next?: string }) {
   );
 }
 
-const styles = StyleSheet.create({ alt: { flexDirection: 'row', alignItems: 'center', gap: space[1], flexWrap: 'wrap' } });
+const styles = StyleSheet.create({
+  alt: { flexDirection: 'row', alignItems: 'center', gap: space[1], flexWrap: 'wrap' },
+});

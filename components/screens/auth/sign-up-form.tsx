@@ -14,7 +14,13 @@ import { space } from '@/components/ui/tokens';
 import { useField } from '@/components/ui/use-field';
 
 /** Name, e-mail, password (at least 10 characters), each checked as you type. */
-export function SignUpForm({ initialEmail = '', onSignedUp }: { initialEmail?: string; onSignedUp: () => void | Promise<void> }) {
+export function SignUpForm({
+  initialEmail = '',
+  onSignedUp,
+}: {
+  initialEmail?: string;
+  onSignedUp: () => void | Promise<void>;
+}) {
   const qc = useQueryClient();
   const name = useField(personName);
   const email = useField(emailField, initialEmail);
@@ -30,7 +36,14 @@ export function SignUpForm({ initialEmail = '', onSignedUp }: { initialEmail?: s
     setBusy(true);
     setError(null);
     try {
-      await authCall(authClient.signUp.email({ name: name.value.trim(), email: email.value.trim().toLowerCase(), password: password.value }), credentialField);
+      await authCall(
+        authClient.signUp.email({
+          name: name.value.trim(),
+          email: email.value.trim().toLowerCase(),
+          password: password.value,
+        }),
+        credentialField,
+      );
       qc.clear();
       await onSignedUp();
     } catch (e) {

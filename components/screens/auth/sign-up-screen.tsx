@@ -31,4 +31,6 @@ export function SignUpScreen({ next }: { next?: string }) {
   );
 }
 
-const styles = StyleSheet.create({ alt: { flexDirection: 'row', alignItems: 'center', gap: space[1], flexWrap: 'wrap' } });
+const styles = StyleSheet.create({
+  alt: { flexDirection: 'row', alignItems: 'center', gap: space[1], flexWrap: 'wrap' },
+});

@@ -42,7 +42,9 @@ export function CreateReviewForm({ teamId, onDone }: { teamId: string; onDone: (
     );
   };
 
-  const handled = isApiError(create.error) && (create.error.fieldError('name') || create.error.fieldError('summary') || create.error.code === 'conflict');
+  const handled =
+    isApiError(create.error) &&
+    (create.error.fieldError('name') || create.error.fieldError('summary') || create.error.code === 'conflict');
   const formError = create.error && !handled ? messageFor(create.error) : null;
 
   return (

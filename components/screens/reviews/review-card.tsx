@@ -8,8 +8,8 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Field } from '@/components/ui/field';
 import { formatAgo } from '@/components/ui/format';
-import { PressableLink } from '@/components/ui/pressable-link';
 import { useMessage } from '@/components/ui/message';
+import { PressableLink } from '@/components/ui/pressable-link';
 import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { space } from '@/components/ui/tokens';
@@ -36,7 +36,9 @@ export function ReviewCard({ review, canEdit, canArchive }: { review: Review; ca
       {
         onSuccess: () => setRenaming(false),
         onError: (error) => {
-          const fieldMessage = isApiError(error) ? (error.fieldError('name') ?? (error.code === 'conflict' ? error.message : undefined)) : undefined;
+          const fieldMessage = isApiError(error)
+            ? (error.fieldError('name') ?? (error.code === 'conflict' ? error.message : undefined))
+            : undefined;
           if (fieldMessage) name.setServerError(fieldMessage);
           else message.showError(error);
         },
@@ -52,7 +54,11 @@ export function ReviewCard({ review, canEdit, canArchive }: { review: Review; ca
           message.show(status === 'archived' ? `“${review.name}” archived.` : `“${review.name}” restored.`, {
             action: {
               label: 'Undo',
-              onPress: () => update.mutate({ reviewId: review.id, patch: { status: status === 'archived' ? 'active' : 'archived' } }, { onError: message.showError }),
+              onPress: () =>
+                update.mutate(
+                  { reviewId: review.id, patch: { status: status === 'archived' ? 'active' : 'archived' } },
+                  { onError: message.showError },
+                ),
             },
           }),
         onError: message.showError,
@@ -80,41 +86,60 @@ export function ReviewCard({ review, canEdit, canArchive }: { review: Review; ca
             testID="review-rename-input"
           />
           <View style={styles.actions}>
-            <Button label="Cancel" variant="quiet" small onPress={() => { name.reset(review.name); setRenaming(false); }} testID="review-rename-cancel" />
+            <Button
+              label="Cancel"
+              variant="quiet"
+              small
+              onPress={() => {
+                name.reset(review.name);
+                setRenaming(false);
+              }}
+              testID="review-rename-cancel"
+            />
             <Button label="Save name" small busy={update.isPending} onPress={saveName} testID="review-rename-save" />
           </View>
         </View>
       ) : (
-          <PressableLink
-            href={`/reviews/${review.id}`}
-            accessibilityLabel={`Open review ${review.name}`}
-            testID={`review-open-${review.id}`}
-            style={({ hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
-              styles.open,
-              hovered && { opacity: 0.8 },
-              focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: 2 },
-            ]}
-          >
-            <View style={styles.titleRow}>
-              <Text size="title" weight="semibold" style={styles.title} testID="review-name">
-                {review.name}
-              </Text>
-              {archived ? <Badge label="Archived" tone="warning" /> : null}
-            </View>
-            {review.summary ? (
-              <Text tone="soft" numberOfLines={2}>
-                {review.summary}
-              </Text>
-            ) : null}
-            <Text size="small" tone="muted">
-              {review.createdBy ? `Started by ${review.createdBy.name} · ` : ''}updated {formatAgo(review.updatedAt)}
+        <PressableLink
+          href={`/reviews/${review.id}`}
+          accessibilityLabel={`Open review ${review.name}`}
+          testID={`review-open-${review.id}`}
+          style={({ hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
+            styles.open,
+            hovered && { opacity: 0.8 },
+            focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: 2 },
+          ]}
+        >
+          <View style={styles.titleRow}>
+            <Text size="title" weight="semibold" style={styles.title} testID="review-name">
+              {review.name}
             </Text>
-          </PressableLink>
+            {archived ? <Badge label="Archived" tone="warning" /> : null}
+          </View>
+          {review.summary ? (
+            <Text tone="soft" numberOfLines={2}>
+              {review.summary}
+            </Text>
+          ) : null}
+          <Text size="small" tone="muted">
+            {review.createdBy ? `Started by ${review.createdBy.name} · ` : ''}updated {formatAgo(review.updatedAt)}
+          </Text>
+        </PressableLink>
       )}
       {!renaming && (canEdit || canArchive) ? (
         <View style={[styles.actions, { borderTopColor: t.hairline }, styles.footer]}>
           {canEdit && !archived ? (
-            <Button label="Rename" accessibilityLabel={`Rename ${review.name}`} variant="quiet" small onPress={() => { name.reset(review.name); setRenaming(true); }} testID={`review-rename-${review.id}`} />
+            <Button
+              label="Rename"
+              accessibilityLabel={`Rename ${review.name}`}
+              variant="quiet"
+              small
+              onPress={() => {
+                name.reset(review.name);
+                setRenaming(true);
+              }}
+              testID={`review-rename-${review.id}`}
+            />
           ) : null}
           {canArchive ? (
             <Button

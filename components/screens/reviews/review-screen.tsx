@@ -31,9 +31,9 @@ export function ReviewScreen({ reviewId }: { reviewId: string }) {
 
   const back = (
     <PressableLink href="/" accessibilityLabel="Back to reviews" testID="back-to-reviews" style={styles.back}>
-        <Text size="small" tone="soft">
-          ← Reviews
-        </Text>
+      <Text size="small" tone="soft">
+        ← Reviews
+      </Text>
     </PressableLink>
   );
 
@@ -62,7 +62,11 @@ export function ReviewScreen({ reviewId }: { reviewId: string }) {
     >
       <View style={styles.meta}>
         {back}
-        <Badge label={r.status === 'archived' ? 'Archived' : 'Active'} tone={r.status === 'archived' ? 'warning' : 'good'} testID="review-status" />
+        <Badge
+          label={r.status === 'archived' ? 'Archived' : 'Active'}
+          tone={r.status === 'archived' ? 'warning' : 'good'}
+          testID="review-status"
+        />
         <Text size="small" tone="muted">
           You are {roleLabels[r.myRole]} · started {formatDate(r.createdAt)}
           {r.createdBy ? ` by ${r.createdBy.name}` : ''}
@@ -77,12 +81,13 @@ export function ReviewScreen({ reviewId }: { reviewId: string }) {
         </Text>
       </Card>
       <EmptyState title="No candidates yet" testID="candidates-empty">
-        Candidates come next: each one a cycle configuration — Simple, Regenerative, Intercooled, Reheat or Intercooled + reheat + regenerative — computed by the
-        server and compared side by side on this board.
+        Candidates come next: each one a cycle configuration — Simple, Regenerative, Intercooled, Reheat or Intercooled
+        + reheat + regenerative — computed by the server and compared side by side on this board.
       </EmptyState>
       <View style={[styles.note, { borderColor: t.hairline }]}>
         <Text size="small" tone="soft">
-          The Design basis (site, fuel, required net power, limits and criteria) will be set here before the first Candidate.
+          The Design basis (site, fuel, required net power, limits and criteria) will be set here before the first
+          Candidate.
         </Text>
       </View>
     </Screen>

@@ -42,7 +42,12 @@ export function ReviewsScreen() {
 
   const newButton =
     canCreate && !creating ? (
-      <Button label="New review" icon={<PlusIcon colour={t.onAccent} />} onPress={() => setCreating(true)} testID="new-review-button" />
+      <Button
+        label="New review"
+        icon={<PlusIcon colour={t.onAccent} />}
+        onPress={() => setCreating(true)}
+        testID="new-review-button"
+      />
     ) : null;
 
   let body;
@@ -70,7 +75,12 @@ export function ReviewsScreen() {
     );
 
   return (
-    <Screen title="Reviews" eyebrow={`${team.name} · ${roleLabels[team.role]}`} actions={newButton} testID="reviews-screen">
+    <Screen
+      title="Reviews"
+      eyebrow={`${team.name} · ${roleLabels[team.role]}`}
+      actions={newButton}
+      testID="reviews-screen"
+    >
       {creating ? <CreateReviewForm teamId={team.id} onDone={() => setCreating(false)} /> : null}
       <View style={styles.filterRow}>
         <View style={{ flexShrink: 1 }}>
@@ -88,7 +98,13 @@ export function ReviewsScreen() {
 }
 
 const styles = StyleSheet.create({
-  filterRow: { flexDirection: 'row', alignItems: 'flex-end', justifyContent: 'space-between', gap: space[2], flexWrap: 'wrap' },
+  filterRow: {
+    flexDirection: 'row',
+    alignItems: 'flex-end',
+    justifyContent: 'space-between',
+    gap: space[2],
+    flexWrap: 'wrap',
+  },
   list: { gap: space[2] },
   grid: { flexDirection: 'row', flexWrap: 'wrap' },
   gridCell: { width: `calc(50% - ${space[1]}px)` as unknown as number },

@@ -26,5 +26,11 @@ export function NotFoundScreen() {
 
 const styles = StyleSheet.create({
   page: { flex: 1, alignItems: 'center', justifyContent: 'center', gap: space[2], padding: space[3] },
-  link: { minHeight: touchTarget, paddingHorizontal: space[2], paddingVertical: space[1] + 2, borderWidth: 1, borderRadius: radius.control },
+  link: {
+    minHeight: touchTarget,
+    paddingHorizontal: space[2],
+    paddingVertical: space[1] + 2,
+    borderWidth: 1,
+    borderRadius: radius.control,
+  },
 });

@@ -56,7 +56,13 @@ export function SettingsScreen() {
       </Card>
       <Card style={styles.card}>
         <Heading level={2}>Units</Heading>
-        <Choice<UnitSystem> label="Unit system" options={unitOptions} value={system} onChange={setSystem} testID="unit-system" />
+        <Choice<UnitSystem>
+          label="Unit system"
+          options={unitOptions}
+          value={system}
+          onChange={setSystem}
+          testID="unit-system"
+        />
         <View style={styles.example}>
           <Text size="small" tone="soft">
             ISO rating ambient
@@ -70,7 +76,13 @@ export function SettingsScreen() {
       <Card style={styles.card}>
         <Heading level={2}>Session</Heading>
         <View style={styles.actions}>
-          <Button label="Sign out" variant="secondary" busy={signingOut} onPress={() => void signOut()} testID="sign-out-button" />
+          <Button
+            label="Sign out"
+            variant="secondary"
+            busy={signingOut}
+            onPress={() => void signOut()}
+            testID="sign-out-button"
+          />
         </View>
       </Card>
     </Screen>

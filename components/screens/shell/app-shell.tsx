@@ -23,7 +23,11 @@ export function AppShell({ userName, children }: { userName: string; children: R
   if (wide) {
     return (
       <View style={[styles.wide, { backgroundColor: t.surface }]}>
-        <View style={[styles.rail, { borderRightColor: t.hairline, backgroundColor: t.surfaceRaised }]} role="navigation" accessibilityLabel="Main">
+        <View
+          style={[styles.rail, { borderRightColor: t.hairline, backgroundColor: t.surfaceRaised }]}
+          role="navigation"
+          accessibilityLabel="Main"
+        >
           <Brand />
           <TeamSwitcher />
           <View style={styles.railNav}>
@@ -57,7 +61,10 @@ export function AppShell({ userName, children }: { userName: string; children: R
         {children}
       </View>
       <View
-        style={[styles.bar, { borderTopColor: t.hairline, backgroundColor: t.surfaceRaised, paddingBottom: insets.bottom }]}
+        style={[
+          styles.bar,
+          { borderTopColor: t.hairline, backgroundColor: t.surfaceRaised, paddingBottom: insets.bottom },
+        ]}
         role="navigation"
         accessibilityLabel="Main"
       >
@@ -89,6 +96,13 @@ const styles = StyleSheet.create({
   brand: { flexDirection: 'row', alignItems: 'center', gap: space[1], minHeight: space[6] },
   main: { flex: 1, minWidth: 0 },
   phone: { flex: 1 },
-  topStrip: { flexDirection: 'row', alignItems: 'center', gap: space[1] + space.half, paddingHorizontal: space[2], paddingVertical: space[1], borderBottomWidth: 1 },
+  topStrip: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space[1] + space.half,
+    paddingHorizontal: space[2],
+    paddingVertical: space[1],
+    borderBottomWidth: 1,
+  },
   bar: { flexDirection: 'row', borderTopWidth: 1 },
 });

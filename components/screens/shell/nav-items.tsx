@@ -12,8 +12,26 @@ export type NavItem = {
 };
 
 export const navItems: NavItem[] = [
-  { href: '/', label: 'Reviews', testID: 'nav-reviews', Icon: ReviewsIcon, matches: (p) => p === '/' || p.startsWith('/reviews') },
+  {
+    href: '/',
+    label: 'Reviews',
+    testID: 'nav-reviews',
+    Icon: ReviewsIcon,
+    matches: (p) => p === '/' || p.startsWith('/reviews'),
+  },
   { href: '/team', label: 'Team', testID: 'nav-team', Icon: TeamIcon, matches: (p) => p.startsWith('/team') },
-  { href: '/activity', label: 'Activity', testID: 'nav-activity', Icon: ActivityIcon, matches: (p) => p.startsWith('/activity') },
-  { href: '/settings', label: 'Settings', testID: 'nav-settings', Icon: SettingsIcon, matches: (p) => p.startsWith('/settings') },
+  {
+    href: '/activity',
+    label: 'Activity',
+    testID: 'nav-activity',
+    Icon: ActivityIcon,
+    matches: (p) => p.startsWith('/activity'),
+  },
+  {
+    href: '/settings',
+    label: 'Settings',
+    testID: 'nav-settings',
+    Icon: SettingsIcon,
+    matches: (p) => p.startsWith('/settings'),
+  },
 ];

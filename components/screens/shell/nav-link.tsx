@@ -13,24 +13,28 @@ export function NavLink({ item, active, layout }: { item: NavItem; active: boole
   const colour = active ? t.text : t.textMuted;
   const { Icon } = item;
   return (
-      <PressableLink
-        href={item.href}
-        accessibilityLabel={item.label}
-        aria-current={active ? 'page' : undefined}
-        testID={item.testID}
-        style={({ focused, hovered }: { pressed: boolean; focused?: boolean; hovered?: boolean }) => [
-          layout === 'rail' ? styles.rail : styles.bar,
-          layout === 'rail' && active && { backgroundColor: t.surfaceSunk },
-          layout === 'rail' && hovered && !active && { backgroundColor: t.surfaceSunk },
-          focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: -2 },
-        ]}
+    <PressableLink
+      href={item.href}
+      accessibilityLabel={item.label}
+      aria-current={active ? 'page' : undefined}
+      testID={item.testID}
+      style={({ focused, hovered }: { pressed: boolean; focused?: boolean; hovered?: boolean }) => [
+        layout === 'rail' ? styles.rail : styles.bar,
+        layout === 'rail' && active && { backgroundColor: t.surfaceSunk },
+        layout === 'rail' && hovered && !active && { backgroundColor: t.surfaceSunk },
+        focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: -2 },
+      ]}
+    >
+      <Icon colour={colour} size={layout === 'rail' ? 20 : 24} />
+      <Text
+        size={layout === 'rail' ? 'body' : 'caption'}
+        weight={active ? 'semibold' : 'medium'}
+        style={{ color: colour }}
       >
-        <Icon colour={colour} size={layout === 'rail' ? 20 : 24} />
-        <Text size={layout === 'rail' ? 'body' : 'caption'} weight={active ? 'semibold' : 'medium'} style={{ color: colour }}>
-          {item.label}
-        </Text>
-        {layout === 'bar' && active ? <View style={[styles.barMark, { backgroundColor: t.text }]} /> : null}
-      </PressableLink>
+        {item.label}
+      </Text>
+      {layout === 'bar' && active ? <View style={[styles.barMark, { backgroundColor: t.text }]} /> : null}
+    </PressableLink>
   );
 }
 
@@ -43,6 +47,21 @@ const styles = StyleSheet.create({
     paddingHorizontal: space[1] + space.half,
     borderRadius: radius.control,
   },
-  barMark: { position: 'absolute', top: 0, left: '30%', right: '30%', height: 3, borderBottomLeftRadius: 2, borderBottomRightRadius: 2 },
-  bar: { flex: 1, alignItems: 'center', justifyContent: 'center', gap: 2, minHeight: touchTarget + space[1] + space.half, paddingVertical: space.half },
+  barMark: {
+    position: 'absolute',
+    top: 0,
+    left: '30%',
+    right: '30%',
+    height: 3,
+    borderBottomLeftRadius: 2,
+    borderBottomRightRadius: 2,
+  },
+  bar: {
+    flex: 1,
+    alignItems: 'center',
+    justifyContent: 'center',
+    gap: 2,
+    minHeight: touchTarget + space[1] + space.half,
+    paddingVertical: space.half,
+  },
 });

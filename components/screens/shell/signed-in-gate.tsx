@@ -25,11 +25,26 @@ export function SignedInGate({ children }: { children: ReactNode }) {
   const signedIn = !!session.data;
   const me = useMeQuery(signedIn);
 
-  if (session.isPending) return <Centered><LoadingState label="Checking your session…" /></Centered>;
+  if (session.isPending)
+    return (
+      <Centered>
+        <LoadingState label="Checking your session…" />
+      </Centered>
+    );
   const next = pathname && pathname !== '/' ? `?next=${encodeURIComponent(pathname)}` : '';
   if (!signedIn || (isApiError(me.error) && me.error.isUnauthenticated)) return <Redirect href={`/sign-in${next}`} />;
-  if (me.error) return <Centered><ErrorState error={me.error} onRetry={() => void me.refetch()} /></Centered>;
-  if (!me.data) return <Centered><LoadingState /></Centered>;
+  if (me.error)
+    return (
+      <Centered>
+        <ErrorState error={me.error} onRetry={() => void me.refetch()} />
+      </Centered>
+    );
+  if (!me.data)
+    return (
+      <Centered>
+        <LoadingState />
+      </Centered>
+    );
 
   const { user, teams } = me.data;
   // Without a Team there is nothing to show but the way to start one (and Settings, to sign out).

@@ -45,7 +45,11 @@ export function TeamSwitcher() {
       </Pressable>
 
       <Modal visible={open} transparent animationType="fade" onRequestClose={() => setOpen(false)}>
-        <Pressable accessibilityLabel="Close team list" style={[styles.backdrop, { backgroundColor: 'rgba(21,25,28,0.32)' }]} onPress={() => setOpen(false)}>
+        <Pressable
+          accessibilityLabel="Close team list"
+          style={[styles.backdrop, { backgroundColor: 'rgba(21,25,28,0.32)' }]}
+          onPress={() => setOpen(false)}
+        >
           <Pressable
             // A plain container: presses inside the panel must not close it.
             onPress={() => {}}
@@ -80,7 +84,9 @@ export function TeamSwitcher() {
                       focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: -2 },
                     ]}
                   >
-                    <View style={[styles.dot, { borderColor: t.text, backgroundColor: selected ? t.text : 'transparent' }]} />
+                    <View
+                      style={[styles.dot, { borderColor: t.text, backgroundColor: selected ? t.text : 'transparent' }]}
+                    />
                     <Text weight={selected ? 'semibold' : 'regular'} numberOfLines={1} style={{ flex: 1 }}>
                       {item.name}
                     </Text>

@@ -36,10 +36,15 @@ export function CreateTeamScreen({ first = false }: { first?: boolean }) {
       },
     );
   };
-  const formError = create.error && !(isApiError(create.error) && create.error.field === 'name') ? messageFor(create.error) : null;
+  const formError =
+    create.error && !(isApiError(create.error) && create.error.field === 'name') ? messageFor(create.error) : null;
 
   return (
-    <Screen title={first ? 'Start your first team' : 'New team'} eyebrow={first ? 'Welcome to Cyclemoot' : 'Teams'} testID="create-team-screen">
+    <Screen
+      title={first ? 'Start your first team' : 'New team'}
+      eyebrow={first ? 'Welcome to Cyclemoot' : 'Teams'}
+      testID="create-team-screen"
+    >
       <Text tone="soft">
         {first
           ? 'A Team holds your Reviews and the people who take part in them. You will be its Owner and can invite others by e-mail.'

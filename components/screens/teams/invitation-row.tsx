@@ -11,18 +11,32 @@ import { space } from '@/components/ui/tokens';
 import { roleLabels } from '@/server/contracts/roles';
 import type { PendingInvitation } from '@/server/contracts/team';
 
-export function InvitationRow({ teamId, invitation, canCancel, first }: { teamId: string; invitation: PendingInvitation; canCancel: boolean; first: boolean }) {
+export function InvitationRow({
+  teamId,
+  invitation,
+  canCancel,
+  first,
+}: {
+  teamId: string;
+  invitation: PendingInvitation;
+  canCancel: boolean;
+  first: boolean;
+}) {
   const t = useTheme();
   const cancel = useCancelInvitationMutation(teamId);
   const message = useMessage();
   return (
-    <View style={[styles.row, !first && { borderTopWidth: 1, borderTopColor: t.hairline }]} testID={`invitation-${invitation.email}`}>
+    <View
+      style={[styles.row, !first && { borderTopWidth: 1, borderTopColor: t.hairline }]}
+      testID={`invitation-${invitation.email}`}
+    >
       <View style={styles.who}>
         <Text weight="medium" numberOfLines={1}>
           {invitation.email}
         </Text>
         <Text size="small" tone="soft" numberOfLines={1}>
-          {invitation.invitedBy ? `Invited by ${invitation.invitedBy} · ` : ''}expires {formatDate(invitation.expiresAt)}
+          {invitation.invitedBy ? `Invited by ${invitation.invitedBy} · ` : ''}expires{' '}
+          {formatDate(invitation.expiresAt)}
         </Text>
       </View>
       <Badge label={roleLabels[invitation.role]} />
@@ -36,7 +50,10 @@ export function InvitationRow({ teamId, invitation, canCancel, first }: { teamId
           onPress={() =>
             cancel.mutate(
               { invitationId: invitation.id },
-              { onSuccess: () => message.show(`Invitation to ${invitation.email} cancelled.`), onError: message.showError },
+              {
+                onSuccess: () => message.show(`Invitation to ${invitation.email} cancelled.`),
+                onError: message.showError,
+              },
             )
           }
           testID={`invitation-cancel-${invitation.email}`}

@@ -5,8 +5,7 @@ import { isApiError } from '@/components/data/api-error';
 import { useInviteMemberMutation } from '@/components/data/teams';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Choice } from '@/components/ui/field';
-import { Field } from '@/components/ui/field';
+import { Choice, Field } from '@/components/ui/field';
 import { useMessage } from '@/components/ui/message';
 import { messageFor } from '@/components/ui/message-for';
 import { Heading, Text } from '@/components/ui/text';
@@ -48,7 +47,8 @@ export function InviteForm({ teamId }: { teamId: string }) {
       },
     );
   };
-  const formError = invite.error && !(isApiError(invite.error) && invite.error.field === 'email') ? messageFor(invite.error) : null;
+  const formError =
+    invite.error && !(isApiError(invite.error) && invite.error.field === 'email') ? messageFor(invite.error) : null;
 
   return (
     <Card style={styles.card} testID="invite-form">

@@ -15,7 +15,19 @@ import type { TeamMember } from '@/server/contracts/team';
 
 const roleOptions = teamRoles.map((r) => ({ value: r, label: roleLabels[r] }));
 
-export function MemberRow({ teamId, member, isMe, canManage, first }: { teamId: string; member: TeamMember; isMe: boolean; canManage: boolean; first: boolean }) {
+export function MemberRow({
+  teamId,
+  member,
+  isMe,
+  canManage,
+  first,
+}: {
+  teamId: string;
+  member: TeamMember;
+  isMe: boolean;
+  canManage: boolean;
+  first: boolean;
+}) {
   const t = useTheme();
   const [editing, setEditing] = useState(false);
   const [confirmRemove, setConfirmRemove] = useState(false);
@@ -36,7 +48,10 @@ export function MemberRow({ teamId, member, isMe, canManage, first }: { teamId: 
   };
 
   return (
-    <View style={[styles.row, !first && { borderTopWidth: 1, borderTopColor: t.hairline }]} testID={`member-${member.email}`}>
+    <View
+      style={[styles.row, !first && { borderTopWidth: 1, borderTopColor: t.hairline }]}
+      testID={`member-${member.email}`}
+    >
       <View style={styles.main}>
         <View style={styles.who}>
           <Text weight="semibold" numberOfLines={1}>
@@ -47,7 +62,11 @@ export function MemberRow({ teamId, member, isMe, canManage, first }: { teamId: 
             {member.email} · joined {formatDate(member.joinedAt)}
           </Text>
         </View>
-        <Badge label={roleLabels[member.role]} tone={member.role === 'owner' ? 'cold' : 'neutral'} testID={`member-role-${member.email}`} />
+        <Badge
+          label={roleLabels[member.role]}
+          tone={member.role === 'owner' ? 'cold' : 'neutral'}
+          testID={`member-role-${member.email}`}
+        />
         {manageable ? (
           <Button
             label={editing ? 'Done' : 'Manage'}
@@ -64,13 +83,25 @@ export function MemberRow({ teamId, member, isMe, canManage, first }: { teamId: 
       </View>
       {manageable && editing ? (
         <View style={styles.editor}>
-          <Choice label={`Role of ${member.name}`} options={roleOptions} value={member.role} onChange={changeRole} testID={`member-role-choice-${member.email}`} />
+          <Choice
+            label={`Role of ${member.name}`}
+            options={roleOptions}
+            value={member.role}
+            onChange={changeRole}
+            testID={`member-role-choice-${member.email}`}
+          />
           {confirmRemove ? (
             <View style={styles.confirm}>
               <Text size="small" tone="danger" style={{ flex: 1 }}>
                 Remove {member.name} from the Team? They lose access at once.
               </Text>
-              <Button label="Keep" variant="secondary" small onPress={() => setConfirmRemove(false)} testID={`member-remove-cancel-${member.email}`} />
+              <Button
+                label="Keep"
+                variant="secondary"
+                small
+                onPress={() => setConfirmRemove(false)}
+                testID={`member-remove-cancel-${member.email}`}
+              />
               <Button
                 label="Remove"
                 accessibilityLabel={`Remove ${member.name}`}
@@ -80,7 +111,10 @@ export function MemberRow({ teamId, member, isMe, canManage, first }: { teamId: 
                 onPress={() =>
                   remove.mutate(
                     { memberId: member.memberId },
-                    { onSuccess: () => message.show(`${member.name} was removed from the Team.`), onError: message.showError },
+                    {
+                      onSuccess: () => message.show(`${member.name} was removed from the Team.`),
+                      onError: message.showError,
+                    },
                   )
                 }
                 testID={`member-remove-confirm-${member.email}`}
@@ -88,7 +122,14 @@ export function MemberRow({ teamId, member, isMe, canManage, first }: { teamId: 
             </View>
           ) : (
             <View style={styles.confirm}>
-              <Button label="Remove from team" accessibilityLabel={`Remove ${member.name} from the team`} variant="danger" small onPress={() => setConfirmRemove(true)} testID={`member-remove-${member.email}`} />
+              <Button
+                label="Remove from team"
+                accessibilityLabel={`Remove ${member.name} from the team`}
+                variant="danger"
+                small
+                onPress={() => setConfirmRemove(true)}
+                testID={`member-remove-${member.email}`}
+              />
             </View>
           )}
         </View>

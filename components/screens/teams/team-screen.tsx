@@ -4,11 +4,11 @@ import { authClient } from '@/components/auth/auth-client';
 import { useTeamQuery } from '@/components/data/teams';
 import { useCurrentTeam } from '@/components/state/current-team';
 import { Card } from '@/components/ui/card';
-import { Heading, Text } from '@/components/ui/text';
+import { count } from '@/components/ui/format';
 import { Screen } from '@/components/ui/screen';
 import { ErrorState, LoadingState } from '@/components/ui/states';
+import { Heading, Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
-import { count } from '@/components/ui/format';
 import { roleAllows, roleLabels } from '@/server/contracts/roles';
 
 import { InvitationRow } from './invitation-row';
@@ -79,7 +79,13 @@ export function TeamScreen() {
       ) : (
         <Card style={styles.list} testID="invitation-list">
           {data.invitations.map((invitation, i) => (
-            <InvitationRow key={invitation.id} teamId={data.id} invitation={invitation} canCancel={canCancel} first={i === 0} />
+            <InvitationRow
+              key={invitation.id}
+              teamId={data.id}
+              invitation={invitation}
+              canCancel={canCancel}
+              first={i === 0}
+            />
           ))}
         </Card>
       )}
