@@ -1,9 +1,11 @@
 import type { Server as HttpServer } from 'node:http';
 
 import { fromNodeHeaders } from 'better-auth/node';
+import { eq } from 'drizzle-orm';
 import { Server, type Socket } from 'socket.io';
 
 import type { Database } from '@/db/client';
+import { member } from '@/db/schema';
 import type { Auth } from '@/server/auth/auth';
 import { ApiError } from '@/server/http/errors';
 import { requireTeam } from '@/server/http/guard';
@@ -90,9 +92,28 @@ export function attachRealtime(
     );
   });
 
+  // Membership is checked again at every send: someone removed from the Team since joining
+  // the room is taken out of it instead of hearing its news.
+  const sendToMembers = async <E extends keyof ServerToClientEvents>(
+    teamId: string,
+    event: E,
+    ...args: Parameters<ServerToClientEvents[E]>
+  ) => {
+    const room = teamRoom(teamId);
+    const sockets = await io.in(room).fetchSockets();
+    if (sockets.length === 0) return;
+    const rows = await db.select({ userId: member.userId }).from(member).where(eq(member.organizationId, teamId));
+    const members = new Set(rows.map((r) => r.userId));
+    for (const socket of sockets) {
+      if (members.has(socket.data.user.id)) socket.emit(event, ...args);
+      else socket.leave(room);
+    }
+  };
   const broadcast: Broadcast = {
     toTeam(teamId, event, ...args) {
-      io.to(teamRoom(teamId)).emit(event, ...args);
+      sendToMembers(teamId, event, ...args).catch((error: unknown) =>
+        console.error('[realtime] broadcast failed:', error),
+      );
     },
   };
   return { io, broadcast };

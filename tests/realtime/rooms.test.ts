@@ -17,7 +17,7 @@ async function signUp(name: string) {
     .post('/api/auth/sign-up/email')
     .send({ name, email: uniqueEmail(name), password: 'correct-horse-battery' });
   const cookie = (res.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
-  return { agent, cookie, id: res.body.user.id as string };
+  return { agent, cookie, id: res.body.user.id as string, email: res.body.user.email as string };
 }
 
 function open(cookie?: string): Promise<Client> {
@@ -69,5 +69,37 @@ describe('team rooms', () => {
     expect((await heard).review.name).toBe('Announced review');
     await new Promise((r) => setTimeout(r, 200));
     expect(outsiderHeard).toBe(false);
+  });
+
+  it('stops telling a member who was removed from the Team', async () => {
+    const owner = await signUp('Olav');
+    const leaver = await signUp('Lea');
+    const team = await owner.agent
+      .post('/api/auth/organization/create')
+      .send({ name: 'Shrinking team', slug: `shrink-${Date.now()}` });
+    const teamId = team.body.id as string;
+    const invite = await owner.agent
+      .post('/api/auth/organization/invite-member')
+      .send({ email: leaver.email, role: 'reviewer', organizationId: teamId });
+    await leaver.agent
+      .post('/api/auth/organization/accept-invitation')
+      .send({ invitationId: invite.body.id })
+      .expect(200);
+
+    const leaverSocket = await open(leaver.cookie);
+    expect(await leaverSocket.emitWithAck('team:join', { teamId })).toEqual({ ok: true });
+    const first = new Promise((resolve) => leaverSocket.once('review:created', resolve));
+    await owner.agent.post(`/api/teams/${teamId}/reviews`).send({ name: 'Heard by all' }).expect(201);
+    await first;
+
+    await owner.agent
+      .post('/api/auth/organization/remove-member')
+      .send({ memberIdOrEmail: leaver.email, organizationId: teamId })
+      .expect(200);
+    let heardAfter = false;
+    leaverSocket.on('review:created', () => (heardAfter = true));
+    await owner.agent.post(`/api/teams/${teamId}/reviews`).send({ name: 'Not for leavers' }).expect(201);
+    await new Promise((r) => setTimeout(r, 300));
+    expect(heardAfter).toBe(false);
   });
 });
