@@ -40,16 +40,29 @@ const stages = (quantity: string) =>
     .min(1, { error: `${quantity} must be at least 1.` })
     .max(100, { error: `${quantity} must be at most 100.` });
 
+/** Messages for a group of inputs: missing, not an object, or holding unknown fields. */
+const group = (what: string) => ({
+  error: (issue: { code?: string; input?: unknown; keys?: string[] }) =>
+    issue.code === 'unrecognized_keys'
+      ? `${what} has unknown fields: ${(issue.keys ?? []).join(', ')}.`
+      : issue.input === undefined
+        ? `${what} is required.`
+        : `${what} must be an object.`,
+});
+
 export const ambientSchema = z
-  .strictObject({
-    temperatureK: temperatureK('Ambient temperature'),
-    pressureKPa: num('Ambient pressure').gt(0, { error: 'Ambient pressure must be above 0 kPa.' }).optional(),
-    elevationM: num('Elevation')
-      .min(-1000, { error: 'Elevation must be at least −1000 m.' })
-      .max(20000, { error: 'Elevation must be at most 20 000 m.' })
-      .optional(),
-    relativeHumidity: fraction('Relative humidity'),
-  })
+  .strictObject(
+    {
+      temperatureK: temperatureK('Ambient temperature'),
+      pressureKPa: num('Ambient pressure').gt(0, { error: 'Ambient pressure must be above 0 kPa.' }).optional(),
+      elevationM: num('Elevation')
+        .min(-1000, { error: 'Elevation must be at least −1000 m.' })
+        .max(20000, { error: 'Elevation must be at most 20 000 m.' })
+        .optional(),
+      relativeHumidity: fraction('Relative humidity'),
+    },
+    group('Ambient'),
+  )
   .superRefine((value, ctx) => {
     if (value.pressureKPa === undefined && value.elevationM === undefined) {
       ctx.addIssue({ code: 'custom', path: ['pressureKPa'], message: 'Give the ambient pressure or the elevation.' });
@@ -63,57 +76,75 @@ export const ambientSchema = z
     }
   });
 
-export const fuelSchema = z.strictObject({
-  hydrogenVolumeFraction: fraction('Hydrogen volume fraction'),
-  temperatureK: temperatureK('Fuel temperature'),
-});
+export const fuelSchema = z.strictObject(
+  {
+    hydrogenVolumeFraction: fraction('Hydrogen volume fraction'),
+    temperatureK: temperatureK('Fuel temperature'),
+  },
+  group('Fuel'),
+);
 
-export const compressorSchema = z.strictObject({
-  stages: stages('Number of compressor stages'),
-  pressureRatio: num('Pressure ratio').gt(1, { error: 'Pressure ratio must be above 1.' }),
-  isentropicEfficiency: efficiency('Compressor isentropic efficiency'),
-  /** Default: the ambient temperature (filled in by evaluateRequestSchema and by the engine). */
-  intercoolTemperatureK: temperatureK('Intercooling temperature').optional(),
-  intercoolerPressureLoss: pressureLoss('Intercooler pressure loss').default(0),
-});
+export const compressorSchema = z.strictObject(
+  {
+    stages: stages('Number of compressor stages'),
+    pressureRatio: num('Pressure ratio').gt(1, { error: 'Pressure ratio must be above 1.' }),
+    isentropicEfficiency: efficiency('Compressor isentropic efficiency'),
+    /** Default: the ambient temperature (filled in by evaluateRequestSchema and by the engine). */
+    intercoolTemperatureK: temperatureK('Intercooling temperature').optional(),
+    intercoolerPressureLoss: pressureLoss('Intercooler pressure loss').default(0),
+  },
+  group('Compressor'),
+);
 
-export const regeneratorSchema = z.strictObject({
-  effectiveness: fraction('Regenerator effectiveness'),
-  airSidePressureLoss: pressureLoss('Regenerator air-side pressure loss'),
-  gasSidePressureLoss: pressureLoss('Regenerator gas-side pressure loss'),
-});
+export const regeneratorSchema = z.strictObject(
+  {
+    effectiveness: fraction('Regenerator effectiveness'),
+    airSidePressureLoss: pressureLoss('Regenerator air-side pressure loss'),
+    gasSidePressureLoss: pressureLoss('Regenerator gas-side pressure loss'),
+  },
+  group('Regenerator'),
+);
 
-export const turbineSchema = z.strictObject({
-  stages: stages('Number of turbine stages'),
-  inletTemperatureK: temperatureK('Turbine inlet temperature'),
-  isentropicEfficiency: efficiency('Turbine isentropic efficiency'),
-  /** Default: the turbine inlet temperature. */
-  reheatTemperatureK: temperatureK('Reheat temperature').optional(),
-  reheaterPressureLoss: pressureLoss('Reheater pressure loss').default(0),
-});
+export const turbineSchema = z.strictObject(
+  {
+    stages: stages('Number of turbine stages'),
+    inletTemperatureK: temperatureK('Turbine inlet temperature'),
+    isentropicEfficiency: efficiency('Turbine isentropic efficiency'),
+    /** Default: the turbine inlet temperature. */
+    reheatTemperatureK: temperatureK('Reheat temperature').optional(),
+    reheaterPressureLoss: pressureLoss('Reheater pressure loss').default(0),
+  },
+  group('Turbine'),
+);
 
-export const limitsSchema = z.strictObject({
-  maxTurbineInletTemperatureK: num('Turbine inlet temperature limit').gt(0).optional(),
-  exhaustTemperatureMinK: num('Lowest exhaust temperature').gt(0).optional(),
-  exhaustTemperatureMaxK: num('Highest exhaust temperature').gt(0).optional(),
-});
+export const limitsSchema = z.strictObject(
+  {
+    maxTurbineInletTemperatureK: num('Turbine inlet temperature limit').gt(0).optional(),
+    exhaustTemperatureMinK: num('Lowest exhaust temperature').gt(0).optional(),
+    exhaustTemperatureMaxK: num('Highest exhaust temperature').gt(0).optional(),
+  },
+  group('Limits'),
+);
 
 /** One cycle as the engine takes it; defaults that depend on other fields stay optional. */
 export const cycleInputSchema = z
-  .strictObject({
-    ambient: ambientSchema,
-    fluid: z.enum(['variable-cp-air', 'combustion', 'constant-cp-air'], {
-      error: 'Working fluid must be variable-cp-air, combustion or constant-cp-air.',
-    }),
-    fuel: fuelSchema.nullable().optional(),
-    compressor: compressorSchema,
-    regenerator: regeneratorSchema.nullable().default(null),
-    combustorPressureLoss: pressureLoss('Combustor pressure loss'),
-    turbine: turbineSchema,
-    generatorEfficiency: efficiency('Generator efficiency'),
-    netPowerKW: num('Required net power').gt(0, { error: 'Required net power must be above 0 kW.' }),
-    limits: limitsSchema.nullable().optional(),
-  })
+  .strictObject(
+    {
+      ambient: ambientSchema,
+      fluid: z.enum(['variable-cp-air', 'combustion', 'constant-cp-air'], {
+        error: 'Working fluid must be variable-cp-air, combustion or constant-cp-air.',
+      }),
+      fuel: fuelSchema.nullable().optional(),
+      compressor: compressorSchema,
+      regenerator: regeneratorSchema.nullable().default(null),
+      combustorPressureLoss: pressureLoss('Combustor pressure loss'),
+      turbine: turbineSchema,
+      generatorEfficiency: efficiency('Generator efficiency'),
+      netPowerKW: num('Required net power').gt(0, { error: 'Required net power must be above 0 kW.' }),
+      limits: limitsSchema.nullable().optional(),
+    },
+    group('The cycle input'),
+  )
   .superRefine((value, ctx) => {
     if (value.fluid === 'combustion' && !value.fuel) {
       ctx.addIssue({ code: 'custom', path: ['fuel'], message: 'The combustion working fluid needs a fuel.' });
@@ -164,16 +195,19 @@ export const sweepParameterSchema = z.enum(
 
 /** Body of POST /sweep. Defaults left out of `base` follow the swept value (reheat follows the turbine inlet). */
 export const sweepRequestSchema = z
-  .strictObject({
-    base: cycleInputSchema,
-    parameter: sweepParameterSchema,
-    from: num('Start of the range'),
-    to: num('End of the range'),
-    points: num('Number of points')
-      .int({ error: 'Number of points must be a whole number.' })
-      .min(2, { error: 'Number of points must be at least 2.' })
-      .max(1000, { error: 'Number of points must be at most 1000.' }),
-  })
+  .strictObject(
+    {
+      base: cycleInputSchema,
+      parameter: sweepParameterSchema,
+      from: num('Start of the range'),
+      to: num('End of the range'),
+      points: num('Number of points')
+        .int({ error: 'Number of points must be a whole number.' })
+        .min(2, { error: 'Number of points must be at least 2.' })
+        .max(1000, { error: 'Number of points must be at most 1000.' }),
+    },
+    group('The sweep request'),
+  )
   .superRefine((value, ctx) => {
     if (!(value.to > value.from))
       ctx.addIssue({ code: 'custom', path: ['to'], message: 'End of the range must be above its start.' });
