@@ -1,15 +1,17 @@
 import { EngineInputError } from '../errors';
-import { type BurnOutcome, type Fuel, type GasStream, burnForRise, fuelRelease, makeFuel, makeStream } from '../processes/combustion';
+import { type Fuel, type GasStream, burnFuel, fuelRelease, makeFuel, makeStream } from '../processes/combustion';
 import { compress } from '../processes/compression';
-import { expand } from '../processes/expansion';
-import { type FlowState, stateAt } from '../processes/flow-state';
-import { type RegeneratorOutcome, changeTemperature, regenerate } from '../processes/heat-exchange';
-import { ConstantCpAir } from '../properties/constant-cp-air';
+import { type FlowState, stateAt, stateFromEnthalpy } from '../processes/flow-state';
+import { changeTemperature } from '../processes/heat-exchange';
+import { CONSTANT_CP_KJ_PER_KG_K, ConstantCpAir } from '../properties/constant-cp-air';
 import type { GasModel } from '../properties/gas-model';
+import type { IdealGasMixture } from '../properties/ideal-gas-mixture';
 import { humidAir } from '../properties/humid-air';
 import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K } from '../properties/nasa-species';
+import { constantCpPolynomial, enthalpyOf, standardEntropyOf } from '../properties/property-polynomial';
 import { type ResolvedInput, resolveInput } from './resolve-input';
 import { changingCompositionPath, isobarPath, polytropicPath } from './t-s-paths';
+import { type TrainPass, type TrainSetup, freshTrainPass, regeneratorDuty, runTrain } from './turbine-train';
 import type { CycleInput, CycleResult, CycleWarning, EvaluateOptions, PathKind, ProcessPath, StatePoint } from './types';
 
 /** Above this burner exit temperature the products dissociate noticeably, which complete combustion ignores (common practice). */
@@ -32,29 +34,29 @@ interface StateRecord {
   readonly burnt: boolean;
 }
 
-interface HotSection {
-  readonly records: StateRecord[];
-  readonly turbineWorkKJ: number;
-  /** Air modes: enthalpy added in the reheaters, kJ per kg of inlet air. */
-  readonly reheatHeatKJ: number;
-  /** Fuel burnt in combustor and reheaters, kg per kg of inlet air (combustion mode). */
-  readonly fuelKg: number;
-  readonly last: StateRecord;
-}
-
 // The inlet air and the fuel model depend only on the ambient and the fuel blend. Sweeps
 // and the board re-evaluate many cycles at one site, so the last of each is kept (they
 // are immutable, so sharing them is safe and keeps evaluation free of hidden state).
-let cachedAir: { key: string; gas: GasModel; stream: GasStream } | null = null;
+interface InletAir {
+  readonly key: string;
+  readonly gas: IdealGasMixture;
+  /** The same air as a stream (1 kg per kg of inlet air), for burning fuel in. */
+  readonly stream: GasStream;
+  /** Its property polynomial per kg (the gas's own), for the turbine train. */
+  readonly polynomial: readonly number[];
+}
+let cachedAir: InletAir | null = null;
 let cachedFuel: Fuel | null = null;
 const CONSTANT_CP_AIR = new ConstantCpAir();
+/** The cold-air standard as a property polynomial (h = 0, s° = 0 at 298.15 K), for the turbine train. */
+const CONSTANT_CP_POLYNOMIAL = constantCpPolynomial(CONSTANT_CP_KJ_PER_KG_K, 298.15);
 
-function inletAir(r: ResolvedInput): { gas: GasModel; stream: GasStream } {
+function inletAir(r: ResolvedInput): InletAir {
   const key = `${r.ambientTemperatureK}|${r.ambientPressureKPa}|${r.relativeHumidity}`;
   if (cachedAir && cachedAir.key === key) return cachedAir;
   const humid = humidAir(r.ambientTemperatureK, r.ambientPressureKPa, r.relativeHumidity);
   const stream = makeStream(humid.amountsPerKg, 0);
-  cachedAir = { key, gas: stream.gas, stream };
+  cachedAir = { key, gas: stream.gas, stream, polynomial: stream.gas.polynomial };
   return cachedAir;
 }
 
@@ -73,38 +75,8 @@ function checkTemperature(temperatureK: number, field: string, what: string): vo
   }
 }
 
-function burnOrThrow(outcome: BurnOutcome, field: string, what: string, inletK: number, outletK: number): GasStream {
-  if (outcome.ok) return outcome.products;
-  if (outcome.reason === 'not-above-inlet') {
-    throw new EngineInputError(field, `${what} (${outletK} K) must be above the gas temperature entering it (${inletK.toFixed(1)} K).`);
-  }
-  throw new EngineInputError(
-    field,
-    `Reaching ${outletK} K would need more fuel than the oxygen in the gas can burn; lower the temperature.`,
-  );
-}
-
 function numbered(label: string, i: number, count: number): string {
   return count > 1 ? `${label} ${i}` : label;
-}
-
-/** What the hot section needs, fixed for one evaluation. */
-interface HotContext {
-  readonly r: ResolvedInput;
-  readonly airGas: GasModel;
-  /** The inlet air as a stream, when fuel burns in it (combustion mode); otherwise null. */
-  readonly airStream: GasStream | null;
-  readonly fuel: Fuel | null;
-  readonly turbineInletKPa: number;
-  readonly expansionRatio: number;
-  readonly turbineLabels: readonly string[];
-  readonly reheaterLabels: readonly string[];
-  /** Combustion mode: inlet air enthalpy at the turbine inlet temperature (kJ/kg), and the
-   * heat released per kg of fuel whose products leave at the turbine inlet and at the
-   * reheat temperature (kJ/kg); fixed for the evaluation, so computed once. */
-  readonly airEnthalpyAtTurbineInlet: number;
-  readonly releaseToTurbineInlet: number;
-  readonly releaseToReheat: number;
 }
 
 // Labels by part name, then by stage count; filled on first use. A string key would cost
@@ -124,131 +96,139 @@ function stageLabels(name: string, count: number, suffix: string): readonly stri
 }
 
 /**
- * Combustor, turbine stages and reheaters for a given combustor inlet temperature (K).
- * A module function rather than a closure in evaluateStagedCycle: it runs several times
- * per evaluation, and a closure would be re-created (and re-named by the transpiler) on
- * every call.
- */
-function hotSection(c: HotContext, combustorInletK: number, combustorInletEnthalpy: number): HotSection {
-  const r = c.r;
-  const fuel = c.fuel;
-  const m = r.turbineStages;
-  const out: StateRecord[] = [];
-  let stream: GasStream | null = null;
-  let gas: GasModel = c.airGas;
-  let mass = 1;
-  if (c.airStream && fuel) {
-    // Per kg of inlet air the air stream's enthalpy is its specific enthalpy.
-    const outcome =
-      r.turbineInletTemperatureK > combustorInletK
-        ? burnForRise(c.airStream, c.airEnthalpyAtTurbineInlet - combustorInletEnthalpy, c.releaseToTurbineInlet, fuel)
-        : NOT_ABOVE_INLET;
-    stream = burnOrThrow(outcome, 'turbine.inletTemperatureK', 'The turbine inlet temperature', combustorInletK, r.turbineInletTemperatureK);
-    gas = stream.gas;
-    mass = stream.mass;
-  }
-  let state = stateAt(gas, r.turbineInletTemperatureK, c.turbineInletKPa);
-  out.push({ label: 'combustor exit', state, gas, mass, process: 'heat-addition', burnt: stream !== null });
-  let turbineWorkKJ = 0;
-  let reheatHeatKJ = 0;
-  for (let j = 1; j <= m; j++) {
-    const exit = expand(gas, state, c.expansionRatio, r.turbineEfficiency);
-    checkStageTemperature(exit.temperatureK, 'turbine', j);
-    turbineWorkKJ += mass * (state.enthalpyKJPerKg - exit.enthalpyKJPerKg);
-    out.push({ label: c.turbineLabels[j], state: exit, gas, mass, process: 'expansion', burnt: false });
-    state = exit;
-    if (j < m) {
-      if (!(r.reheatTemperatureK > exit.temperatureK)) {
-        throw new EngineInputError(
-          'turbine.reheatTemperatureK',
-          `The reheat temperature (${r.reheatTemperatureK} K) must be above the turbine ${j} exit temperature (${exit.temperatureK.toFixed(1)} K).`,
-        );
-      }
-      if (stream && fuel) {
-        // The reheat temperature is above the exit (checked just above).
-        const rise = mass * (gas.enthalpyKJPerKg(r.reheatTemperatureK) - exit.enthalpyKJPerKg);
-        const outcome = burnForRise(stream, rise, c.releaseToReheat, fuel);
-        stream = burnOrThrow(outcome, 'turbine.reheatTemperatureK', 'The reheat temperature', exit.temperatureK, r.reheatTemperatureK);
-        gas = stream.gas;
-        mass = stream.mass;
-      }
-      const reheated = changeTemperature(gas, exit, r.reheatTemperatureK, r.reheaterPressureLoss);
-      if (!stream) reheatHeatKJ += reheated.enthalpyKJPerKg - exit.enthalpyKJPerKg;
-      out.push({ label: c.reheaterLabels[j], state: reheated, gas, mass, process: 'heat-addition', burnt: stream !== null });
-      state = reheated;
-    }
-  }
-  return { records: out, turbineWorkKJ, reheatHeatKJ, fuelKg: stream ? stream.fuelBurnt : 0, last: out[out.length - 1] };
-}
-
-interface RegeneratedPass {
-  readonly hot: HotSection;
-  readonly regenerator: RegeneratorOutcome;
-}
-
-/** One pass of the hot section at a combustor inlet temperature, then the regenerator it feeds. */
-function regeneratedPass(c: HotContext, compressorExit: FlowState, combustorInletK: number): RegeneratedPass {
-  const regenerator = c.r.regenerator!;
-  const hot = hotSection(c, combustorInletK, c.airGas.enthalpyKJPerKg(combustorInletK));
-  const outcome = regenerate(
-    {
-      coldGas: c.airGas,
-      coldInlet: compressorExit,
-      coldMass: 1,
-      hotGas: hot.last.gas,
-      hotInlet: hot.last.state,
-      hotMass: hot.last.mass,
-    },
-    regenerator.effectiveness,
-    regenerator.airSidePressureLoss,
-    regenerator.gasSidePressureLoss,
-  );
-  return { hot, regenerator: outcome };
-}
-
-/**
- * Typical slope of the regenerator cold outlet with respect to the combustor inlet
- * temperature in combustion mode (a hotter inlet burns less fuel, so the exhaust and the
- * cold outlet run slightly cooler): about −0.01 over the cases the board meets. It only
- * shapes the first step of the iteration below; any value below 1 converges.
+ * Typical slope of the regenerator duty with respect to the combustor inlet enthalpy in
+ * combustion mode (a hotter inlet burns less fuel, so the exhaust runs slightly cooler):
+ * about −0.01 over the cases the board meets. It only shapes the first step of the
+ * iteration below; any value below 1 converges.
  */
 const TYPICAL_COUPLING_SLOPE = -0.01;
-/** The cold outlet is closed to 1e-11 relative (about 1e-8 K): the energy balance then
- * closes far better than 1e-9. */
-const COUPLING_RELATIVE_TOLERANCE = 1e-11;
+/** The loop stops when the duty meets ε Q_max to 1e-12 relative (1e-12 kJ/kg for duties
+ * below 1 kJ/kg). The energy balance closes exactly whatever the tolerance (see below). */
+const COUPLING_RELATIVE_TOLERANCE = 1e-12;
+const MAX_COUPLING_PASSES = 50;
 
 /**
- * Combustion mode with a regenerator: finds the combustor inlet temperature x that the
- * regenerator delivers, x = F(x), where F runs the hot section and the regenerator. F is
- * nearly linear with a small negative slope, so: one pass at the compressor exit
- * temperature, a first step using the typical slope, then secant steps. That takes four
- * passes of the turbine train where plain secant steps from the same start take five.
- * The pass whose cold outlet meets its own inlet within the tolerance is the result.
+ * Combustion mode with a regenerator: finds the combustor inlet enthalpy x (kJ/kg) that the
+ * regenerator delivers, x = h_c,in + Q(x), where Q runs the turbine train at x. Q is nearly
+ * linear with a small negative slope, so: one pass at the compressor exit, a first step with
+ * the typical slope, then secant steps (four passes in the 2+2 case). Returns x of the last
+ * pass run, whose numbers `pass` holds: the cycle takes the duty as x − h_c,in, so the energy
+ * balance closes exactly and the tolerance only sets how exactly ε is met.
  */
-function coupledHotSection(c: HotContext, compressorExit: FlowState): RegeneratedPass {
-  const start = Math.min(compressorExit.temperatureK, c.r.turbineInletTemperatureK - 1);
-  let x = start;
-  let pass = regeneratedPass(c, compressorExit, x);
-  let g = pass.regenerator.coldOutlet.temperatureK - x;
+function closeRegeneratorLoop(s: TrainSetup, pass: TrainPass): number {
+  const coldIn = s.coldInletEnthalpy;
+  // Start below the turbine inlet, so that the first burner has something to do.
+  let x = Math.min(coldIn, enthalpyOf(s.air, s.inletK - 1));
   let xPrevious = x;
-  let gPrevious = g;
-  x += g / (1 - TYPICAL_COUPLING_SLOPE);
-  for (let iteration = 0; iteration < 50; iteration++) {
-    if (Math.abs(g) <= COUPLING_RELATIVE_TOLERANCE * xPrevious) break;
-    pass = regeneratedPass(c, compressorExit, x);
-    g = pass.regenerator.coldOutlet.temperatureK - x;
-    if (Math.abs(g) <= COUPLING_RELATIVE_TOLERANCE * x) break;
-    const slope = (g - gPrevious) / (x - xPrevious);
+  let gPrevious = 0;
+  for (let iteration = 0; iteration < MAX_COUPLING_PASSES; iteration++) {
+    runTrain(s, x, pass);
+    const duty = regeneratorDuty(s, pass);
+    const g = coldIn + duty - x;
+    if (iteration === MAX_COUPLING_PASSES - 1 || Math.abs(g) <= COUPLING_RELATIVE_TOLERANCE * Math.max(Math.abs(duty), 1)) break;
+    const slope = iteration === 0 ? TYPICAL_COUPLING_SLOPE - 1 : (g - gPrevious) / (x - xPrevious);
     // A flat or non-finite secant means g is not behaving linearly: take a plain fixed-point step.
     const next = slope < 0 || slope > 0 ? x - g / slope : x + g;
     xPrevious = x;
     gPrevious = g;
     x = Number.isFinite(next) ? next : x + g;
   }
-  return pass;
+  return x;
 }
 
-const NOT_ABOVE_INLET: BurnOutcome = { ok: false, reason: 'not-above-inlet', fuelKg: 0 };
+/** The fixed numbers of the turbine train for one evaluation (see TrainSetup). */
+function trainSetup(
+  r: ResolvedInput,
+  air: InletAir | null,
+  fuel: Fuel | null,
+  compressorExit: FlowState,
+  expansionRatio: number,
+): TrainSetup {
+  const polynomial = air ? air.polynomial : CONSTANT_CP_POLYNOMIAL;
+  const change = fuel && air ? fuel.changePolynomial : null;
+  const fuelK = r.fuel ? r.fuel.temperatureK : 0;
+  const inletK = r.turbineInletTemperatureK;
+  const reheatK = r.reheatTemperatureK;
+  const coldInletK = compressorExit.temperatureK;
+  return {
+    air: polynomial,
+    airMoles: 1 / (air ? air.gas.molarMassKgPerKmol : CONSTANT_CP_AIR.molarMassKgPerKmol),
+    change,
+    changeMoles: change && fuel ? fuel.changeMolesPerKg : 0,
+    maxFuelKg: change && fuel && air ? air.stream.amounts[OXYGEN] / -fuel.changePerKg[OXYGEN] : 0,
+    stages: r.turbineStages,
+    inletK,
+    reheatK,
+    efficiency: r.turbineEfficiency,
+    logStagePressureRatio: -Math.log(expansionRatio),
+    airEnthalpyAtInlet: enthalpyOf(polynomial, inletK),
+    airEntropyAtInlet: standardEntropyOf(polynomial, inletK),
+    changeEnthalpyAtInlet: change ? enthalpyOf(change, inletK) : 0,
+    changeEntropyAtInlet: change ? standardEntropyOf(change, inletK) : 0,
+    airEnthalpyAtReheat: enthalpyOf(polynomial, reheatK),
+    airEntropyAtReheat: standardEntropyOf(polynomial, reheatK),
+    changeEnthalpyAtReheat: change ? enthalpyOf(change, reheatK) : 0,
+    changeEntropyAtReheat: change ? standardEntropyOf(change, reheatK) : 0,
+    releaseToInlet: change && fuel ? fuelRelease(fuel, fuelK, inletK) : 0,
+    releaseToReheat: change && fuel ? fuelRelease(fuel, fuelK, reheatK) : 0,
+    effectiveness: r.regenerator ? r.regenerator.effectiveness : 0,
+    coldInletK,
+    coldInletEnthalpy: compressorExit.enthalpyKJPerKg,
+    changeEnthalpyAtColdInlet: change ? enthalpyOf(change, coldInletK) : 0,
+  };
+}
+
+const OXYGEN = 1;
+
+/**
+ * The states of the hot section (combustor exit, turbine and reheater exits) from the
+ * numbers of the final pass, with their gases: the mixtures of the products are made here,
+ * once per burner, not on every pass. Returns the turbine work from the states' enthalpies.
+ */
+function hotRecords(
+  pass: TrainPass,
+  airGas: GasModel,
+  airStream: GasStream | null,
+  fuel: Fuel | null,
+  turbineInletKPa: number,
+  expansionRatio: number,
+  r: ResolvedInput,
+  records: StateRecord[],
+): number {
+  let stream = airStream;
+  let gas = airGas;
+  let mass = 1;
+  let pressureKPa = turbineInletKPa;
+  let turbineWorkKJ = 0;
+  let previousEnthalpy = 0;
+  const m = r.turbineStages;
+  const turbineLabels = stageLabels('turbine', m, ' exit');
+  const reheaterLabels = stageLabels('reheater', m, ' exit');
+  for (let k = 0; k < pass.count; k++) {
+    const expansion = k % 2 === 1;
+    const burnt = !expansion && stream !== null && fuel !== null;
+    if (burnt) {
+      stream = burnFuel(stream!, pass.fuelKg[k] - stream!.fuelBurnt, fuel!);
+      gas = stream.gas;
+      mass = stream.mass;
+    }
+    if (expansion) pressureKPa /= expansionRatio;
+    else if (k > 0) pressureKPa *= 1 - r.reheaterPressureLoss;
+    const temperatureK = pass.temperatureK[k];
+    const enthalpy = pass.enthalpy[k] / mass;
+    if (expansion) turbineWorkKJ += mass * (previousEnthalpy - enthalpy);
+    previousEnthalpy = enthalpy;
+    records.push({
+      label: k === 0 ? 'combustor exit' : expansion ? turbineLabels[(k + 1) / 2] : reheaterLabels[k / 2],
+      state: { temperatureK, pressureKPa, enthalpyKJPerKg: enthalpy, entropyKJPerKgK: gas.entropyKJPerKgK(temperatureK, pressureKPa) },
+      gas,
+      mass,
+      process: expansion ? 'expansion' : 'heat-addition',
+      burnt,
+    });
+  }
+  return turbineWorkKJ;
+}
 
 function checkStageTemperature(temperatureK: number, part: 'compressor' | 'turbine', stage: number): void {
   // The message is built only on failure: this runs for every stage of every pass.
@@ -322,82 +302,81 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
     );
   }
 
-  const hotContext: HotContext = {
-    r,
-    airGas,
-    airStream: combustion && air ? air.stream : null,
-    fuel: combustion ? fuel : null,
-    turbineInletKPa,
-    expansionRatio,
-    turbineLabels: stageLabels('turbine', m, ' exit'),
-    reheaterLabels: stageLabels('reheater', m, ' exit'),
-    airEnthalpyAtTurbineInlet: combustion ? airGas.enthalpyKJPerKg(r.turbineInletTemperatureK) : 0,
-    releaseToTurbineInlet: combustion && fuel ? fuelRelease(fuel, r.fuel!.temperatureK, r.turbineInletTemperatureK) : 0,
-    releaseToReheat: combustion && fuel ? fuelRelease(fuel, r.fuel!.temperatureK, r.reheatTemperatureK) : 0,
-  };
-
-  let hot: HotSection;
-  let regeneratorDutyKJ = 0;
-  let coldOut: FlowState | null = null;
-  let hotOut: FlowState | null = null;
-  if (regenerator) {
-    // In the air modes the turbine train does not depend on the combustor inlet: one pass.
-    // In combustion mode the exhaust composition depends on the fuel burnt, which depends
-    // on the regenerator's cold outlet: a weakly coupled loop, closed by coupledHotSection.
-    const closed = combustion ? coupledHotSection(hotContext, compressorExit) : regeneratedPass(hotContext, compressorExit, compressorExit.temperatureK);
-    hot = closed.hot;
-    coldOut = closed.regenerator.coldOutlet;
-    hotOut = closed.regenerator.hotOutlet;
-    regeneratorDutyKJ = closed.regenerator.dutyKJ;
+  // The turbine train, as numbers: once in the air modes or without a regenerator; in
+  // combustion mode with a regenerator the exhaust composition depends on the fuel burnt,
+  // which depends on the regenerator's cold outlet, a weakly coupled loop closed by
+  // closeRegeneratorLoop. x is the combustor inlet enthalpy.
+  const setup = trainSetup(r, air, combustion ? fuel : null, compressorExit, expansionRatio);
+  const pass = freshTrainPass();
+  let combustorInletEnthalpy = compressorExit.enthalpyKJPerKg;
+  if (regenerator && setup.change) {
+    combustorInletEnthalpy = closeRegeneratorLoop(setup, pass);
   } else {
-    hot = hotSection(hotContext, compressorExit.temperatureK, compressorExit.enthalpyKJPerKg);
+    runTrain(setup, combustorInletEnthalpy, pass);
+    if (regenerator) combustorInletEnthalpy += regeneratorDuty(setup, pass);
   }
-  const combustorInlet: FlowState = coldOut ?? compressorExit;
+  const last = pass.count - 1;
+  const exhaustK = pass.temperatureK[last];
+  // Cold outlet and duty from x itself: then the duty on the air side is exactly what the
+  // burner saw, and the hot outlet follows from the energy balance with that duty.
+  const regeneratorDutyKJ = combustorInletEnthalpy - compressorExit.enthalpyKJPerKg;
+  const combustorInlet = regenerator
+    ? stateFromEnthalpy(
+        airGas,
+        combustorInletEnthalpy,
+        combustorInletKPa,
+        compressorExit.temperatureK + regenerator.effectiveness * (exhaustK - compressorExit.temperatureK),
+      )
+    : compressorExit;
   if (!(r.turbineInletTemperatureK > combustorInlet.temperatureK)) {
     throw new EngineInputError(
       'turbine.inletTemperatureK',
       `The turbine inlet temperature (${r.turbineInletTemperatureK} K) must be above the combustor inlet temperature (${combustorInlet.temperatureK.toFixed(1)} K).`,
     );
   }
-  if (regenerator && coldOut && hotOut) {
-    const co: FlowState = coldOut;
-    const ho: FlowState = hotOut;
-    if (hot.last.state.temperatureK < compressorExit.temperatureK) {
+  if (regenerator) {
+    if (exhaustK < compressorExit.temperatureK) {
       warnings.push({
         code: 'regenerator-cools-air',
         field: 'regenerator',
-        message: `The compressor exit (${compressorExit.temperatureK.toFixed(1)} K) is hotter than the turbine exhaust (${hot.last.state.temperatureK.toFixed(1)} K), so the regenerator would cool the air; leave it out or lower the pressure ratio.`,
+        message: `The compressor exit (${compressorExit.temperatureK.toFixed(1)} K) is hotter than the turbine exhaust (${exhaustK.toFixed(1)} K), so the regenerator would cool the air; leave it out or lower the pressure ratio.`,
       });
     }
-    records.push({ label: 'regenerator cold out', state: co, gas: airGas, mass: 1, process: 'regenerator-heating', burnt: false });
-    records.push(...hot.records);
+    records.push({ label: 'regenerator cold out', state: combustorInlet, gas: airGas, mass: 1, process: 'regenerator-heating', burnt: false });
+  }
+  const turbineWorkKJ = hotRecords(pass, airGas, combustion && air ? air.stream : null, combustion ? fuel : null, turbineInletKPa, expansionRatio, r, records);
+  if (regenerator) {
+    const hotIn = records[records.length - 1];
     records.push({
       label: 'regenerator hot out',
-      state: ho,
-      gas: hot.last.gas,
-      mass: hot.last.mass,
+      state: stateFromEnthalpy(
+        hotIn.gas,
+        hotIn.state.enthalpyKJPerKg - regeneratorDutyKJ / hotIn.mass,
+        hotIn.state.pressureKPa * (1 - regenerator.gasSidePressureLoss),
+        exhaustK - regenerator.effectiveness * (exhaustK - compressorExit.temperatureK),
+      ),
+      gas: hotIn.gas,
+      mass: hotIn.mass,
       process: 'regenerator-cooling',
       burnt: false,
     });
-  } else {
-    records.push(...hot.records);
   }
+  const fuelBurntKg = pass.fuelKg[last];
 
   // Heat input: fuel × LHV when the fuel burns in the gas; otherwise the enthalpy rise
   // in combustor and reheaters.
   let heatInputKJ: number;
   let fuelAirRatio: number | null = null;
   if (combustion && fuel) {
-    fuelAirRatio = hot.fuelKg;
-    heatInputKJ = hot.fuelKg * fuel.lowerHeatingValueKJPerKg;
+    fuelAirRatio = fuelBurntKg;
+    heatInputKJ = fuelBurntKg * fuel.lowerHeatingValueKJPerKg;
   } else {
-    heatInputKJ =
-      airGas.enthalpyKJPerKg(r.turbineInletTemperatureK) - combustorInlet.enthalpyKJPerKg + hot.reheatHeatKJ;
+    heatInputKJ = setup.airEnthalpyAtInlet - combustorInlet.enthalpyKJPerKg + pass.reheatHeatKJ;
     if (fuel) fuelAirRatio = heatInputKJ / fuel.lowerHeatingValueKJPerKg;
   }
 
   const exhaust = records[records.length - 1];
-  const netWorkKJ = hot.turbineWorkKJ - compressorWorkKJ;
+  const netWorkKJ = turbineWorkKJ - compressorWorkKJ;
   const thermalEfficiency = netWorkKJ / heatInputKJ;
   let airMassFlowKgPerS: number | null = null;
   let fuelMassFlowKgPerS: number | null = null;
@@ -432,11 +411,11 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
   return {
     states,
     compressorWorkKJPerKg: compressorWorkKJ,
-    turbineWorkKJPerKg: hot.turbineWorkKJ,
+    turbineWorkKJPerKg: turbineWorkKJ,
     netWorkKJPerKg: netWorkKJ,
     heatInputKJPerKg: heatInputKJ,
     thermalEfficiency,
-    backWorkRatio: compressorWorkKJ / hot.turbineWorkKJ,
+    backWorkRatio: compressorWorkKJ / turbineWorkKJ,
     regeneratorDutyKJPerKg: regeneratorDutyKJ,
     exhaustTemperatureK: exhaust.state.temperatureK,
     fuelAirRatio,
@@ -478,25 +457,26 @@ function buildPaths(records: StateRecord[], pointsPerProcess: number): ProcessPa
 
 /** Warnings from the ranges of common practice (PRODUCT defaults table). */
 function typicalRangeWarnings(r: ResolvedInput, warnings: CycleWarning[]): void {
-  const check = (value: number, low: number, high: number, field: string, what: string) => {
-    if (value < low || value > high) {
-      warnings.push({
-        code: 'outside-typical-range',
-        field,
-        message: `${what} of ${value} is outside the usual ${low}–${high}.`,
-      });
-    }
-  };
-  check(r.compressorEfficiency, 0.75, 0.95, 'compressor.isentropicEfficiency', 'A compressor stage isentropic efficiency');
-  check(r.turbineEfficiency, 0.75, 0.95, 'turbine.isentropicEfficiency', 'A turbine stage isentropic efficiency');
-  check(r.combustorPressureLoss, 0.01, 0.08, 'combustorPressureLoss', 'A combustor pressure loss');
-  if (r.compressorStages > 1) check(r.intercoolerPressureLoss, 0, 0.05, 'compressor.intercoolerPressureLoss', 'An intercooler pressure loss');
-  if (r.regenerator) {
-    check(r.regenerator.effectiveness, 0.5, 0.95, 'regenerator.effectiveness', 'A regenerator effectiveness');
-    check(r.regenerator.airSidePressureLoss, 0, 0.08, 'regenerator.airSidePressureLoss', 'A regenerator air-side pressure loss');
-    check(r.regenerator.gasSidePressureLoss, 0, 0.08, 'regenerator.gasSidePressureLoss', 'A regenerator gas-side pressure loss');
+  checkTypical(warnings, r.compressorEfficiency, 0.75, 0.95, 'compressor.isentropicEfficiency', 'A compressor stage isentropic efficiency');
+  checkTypical(warnings, r.turbineEfficiency, 0.75, 0.95, 'turbine.isentropicEfficiency', 'A turbine stage isentropic efficiency');
+  checkTypical(warnings, r.combustorPressureLoss, 0.01, 0.08, 'combustorPressureLoss', 'A combustor pressure loss');
+  if (r.compressorStages > 1) {
+    checkTypical(warnings, r.intercoolerPressureLoss, 0, 0.05, 'compressor.intercoolerPressureLoss', 'An intercooler pressure loss');
   }
-  check(r.generatorEfficiency, 0.95, 1, 'generatorEfficiency', 'A generator efficiency');
+  if (r.regenerator) {
+    checkTypical(warnings, r.regenerator.effectiveness, 0.5, 0.95, 'regenerator.effectiveness', 'A regenerator effectiveness');
+    checkTypical(warnings, r.regenerator.airSidePressureLoss, 0, 0.08, 'regenerator.airSidePressureLoss', 'A regenerator air-side pressure loss');
+    checkTypical(warnings, r.regenerator.gasSidePressureLoss, 0, 0.08, 'regenerator.gasSidePressureLoss', 'A regenerator gas-side pressure loss');
+  }
+  checkTypical(warnings, r.generatorEfficiency, 0.95, 1, 'generatorEfficiency', 'A generator efficiency');
+}
+
+// A module function, not a closure inside typicalRangeWarnings: the transpiler names every
+// closure it creates (a property definition on each call), which cost more than the checks.
+function checkTypical(warnings: CycleWarning[], value: number, low: number, high: number, field: string, what: string): void {
+  if (value < low || value > high) {
+    warnings.push({ code: 'outside-typical-range', field, message: `${what} of ${value} is outside the usual ${low}–${high}.` });
+  }
 }
 
 function resultWarnings(r: ResolvedInput, exhaustK: number, combustion: boolean, warnings: CycleWarning[]): void {

@@ -7,6 +7,7 @@ import {
   massOfAmounts,
 } from '../properties/ideal-gas-mixture';
 import { SPECIES } from '../properties/nasa-species';
+import { polynomialFromCoefficients } from '../properties/property-polynomial';
 
 const O2 = 1;
 const CO2 = 3;
@@ -36,6 +37,10 @@ export interface Fuel {
   readonly changeCoefficients: Float64Array;
   /** Extensive polynomial of 1 kg of unburnt fuel: its absolute enthalpy in kJ/kg via enthalpyOfCoefficients (200–6000 K). */
   readonly fuelCoefficients: Float64Array;
+  /** The change as a property polynomial (property-polynomial.ts): kJ and kJ/K per kg of fuel burnt, no mixing term. */
+  readonly changePolynomial: readonly number[];
+  /** kmol of gas gained per kg of fuel burnt (Σ νᵢ). */
+  readonly changeMolesPerKg: number;
 }
 
 /** Builds the fuel model for a hydrogen volume fraction 0–1. */
@@ -63,6 +68,8 @@ export function makeFuel(hydrogenVolumeFraction: number): Fuel {
     changePerKg: change,
     changeCoefficients,
     fuelCoefficients,
+    changePolynomial: polynomialFromCoefficients(changeCoefficients, 1, 0),
+    changeMolesPerKg: change[O2] + change[CO2] + change[H2O],
   };
 }
 
@@ -129,7 +136,17 @@ export function burnForRise(stream: GasStream, riseKJ: number, releaseKJ: number
   if (!(release > 0) || !(stream.amounts[O2] + fuelKg * change[O2] >= 0)) {
     return { ok: false, reason: 'too-much-fuel', fuelKg };
   }
-  // Plain array literals: the cheapest allocation for these small vectors (see IdealGasMixture).
+  return { ok: true, fuelKg, products: burnFuel(stream, fuelKg, fuel) };
+}
+
+/**
+ * The products of burning `fuelKg` (kg per kg of inlet air) of the fuel completely in the
+ * stream: its amounts and polynomial plus fuelKg times the fuel's change. The caller checks
+ * that the oxygen suffices.
+ */
+export function burnFuel(stream: GasStream, fuelKg: number, fuel: Fuel): GasStream {
+  const change = fuel.changePerKg;
+  // Plain array literals: the cheapest allocation for these small vectors.
   const n = stream.amounts;
   const amounts = [
     n[0] + fuelKg * change[0],
@@ -145,9 +162,5 @@ export function burnForRise(stream: GasStream, riseKJ: number, releaseKJ: number
   const coefficients: number[] = new Array(LENGTH);
   for (let k = 0; k < LENGTH; k++) coefficients[k] = c[k] + fuelKg * d[k];
   const mass = stream.mass + fuelKg;
-  return {
-    ok: true,
-    fuelKg,
-    products: { amounts, mass, fuelBurnt: stream.fuelBurnt + fuelKg, gas: new IdealGasMixture(amounts, coefficients, mass), coefficients },
-  };
+  return { amounts, mass, fuelBurnt: stream.fuelBurnt + fuelKg, gas: new IdealGasMixture(amounts, coefficients, mass), coefficients };
 }

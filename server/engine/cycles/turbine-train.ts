@@ -1,0 +1,249 @@
+/**
+ * The hot section as numbers only: combustor, turbine stages and reheaters for a given
+ * combustor inlet enthalpy, then the regenerator duty that exhaust would give. This is the
+ * inner loop of the engine (the regenerator loop of the combustion mode runs it several
+ * times per evaluation), so it works on scalars and reused scratch arrays: no state
+ * objects, no mixtures, no labels. The cycle builds its states once, from the last pass.
+ *
+ * Everything is extensive, per kg of compressor inlet air (kJ, kJ/K): burning w kg of fuel
+ * in the air gives products whose property polynomial is air + w × change (see
+ * property-polynomial.ts), so a burner is one weighted sum and the per-kg division is never
+ * needed. An expansion at fixed composition keeps its per-kg form multiplied by the mass:
+ *   S(T2s) = S(T1) + Ru n ln(p2/p1)   (n: kmol of gas, so Ru n = mass × R),
+ *   H2 = H1 − η (H1 − H(T2s)).
+ * The entropy of mixing is left out: at fixed composition it cancels from S(T2s) − S(T1).
+ */
+import { EngineInputError } from '../errors';
+import {
+  blendPolynomials,
+  cpOf,
+  enthalpyOf,
+  newPolynomial,
+  standardEntropyOf,
+  temperatureFromEnthalpyOf,
+  temperatureFromStandardEntropyOf,
+} from '../properties/property-polynomial';
+import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K, UNIVERSAL_GAS_CONSTANT } from '../properties/nasa-species';
+import { MAX_STAGES } from './resolve-input';
+
+// Local copies: an imported binding is a property getter once transpiled, read per stage.
+const MIN_K = DATA_MIN_K;
+const MAX_K = DATA_MAX_K;
+const RU = UNIVERSAL_GAS_CONSTANT;
+
+/** What a pass needs, fixed for one evaluation. Enthalpies kJ and entropies kJ/K per kg of inlet air. */
+export interface TrainSetup {
+  /** Property polynomial of the compressor inlet air, per kg of it (no mixing term needed). */
+  readonly air: readonly number[];
+  readonly airMoles: number;
+  /** Polynomial of the change per kg of fuel burnt; null when no fuel burns in the gas (air modes). */
+  readonly change: readonly number[] | null;
+  readonly changeMoles: number;
+  /** Fuel that would burn all the oxygen of the air, kg per kg of air. */
+  readonly maxFuelKg: number;
+  readonly stages: number;
+  readonly inletK: number;
+  readonly reheatK: number;
+  readonly efficiency: number;
+  /** ln(p_exit / p_inlet) of each stage (negative). */
+  readonly logStagePressureRatio: number;
+  /** Air and change enthalpy and s° at the turbine inlet and reheat temperatures. */
+  readonly airEnthalpyAtInlet: number;
+  readonly airEntropyAtInlet: number;
+  readonly changeEnthalpyAtInlet: number;
+  readonly changeEntropyAtInlet: number;
+  readonly airEnthalpyAtReheat: number;
+  readonly airEntropyAtReheat: number;
+  readonly changeEnthalpyAtReheat: number;
+  readonly changeEntropyAtReheat: number;
+  /** Heat the fuel gives per kg when its products leave at the turbine inlet / reheat temperature (fuelRelease). */
+  readonly releaseToInlet: number;
+  readonly releaseToReheat: number;
+  /** Regenerator: effectiveness, cold inlet (compressor exit) temperature and enthalpy, and the change's enthalpy there. */
+  readonly effectiveness: number;
+  readonly coldInletK: number;
+  readonly coldInletEnthalpy: number;
+  readonly changeEnthalpyAtColdInlet: number;
+}
+
+/**
+ * The numbers of one pass. States of the hot section in flow order: combustor exit, turbine
+ * 1 exit, reheater 1 exit, …, turbine M exit (2M of them).
+ */
+export interface TrainPass {
+  readonly temperatureK: Float64Array;
+  /** Extensive enthalpy, kJ per kg of inlet air. */
+  readonly enthalpy: Float64Array;
+  /** Fuel burnt upstream of each state, kg per kg of inlet air. */
+  readonly fuelKg: Float64Array;
+  /** Isentropic exit temperature of each stage (index 1…M), kept to seed the next pass. */
+  readonly isentropicK: Float64Array;
+  count: number;
+  turbineWorkKJ: number;
+  /** Air modes: enthalpy added in the reheaters. */
+  reheatHeatKJ: number;
+  /** Combustion: the polynomial of the gas after the last burner (scratch, overwritten by each pass). */
+  readonly gas: number[];
+  /** True once a pass has run in this evaluation, so its temperatures can seed the next. */
+  seeded: boolean;
+}
+
+function newTrainPass(): TrainPass {
+  const states = 2 * MAX_STAGES;
+  return {
+    temperatureK: new Float64Array(states),
+    enthalpy: new Float64Array(states),
+    fuelKg: new Float64Array(states),
+    isentropicK: new Float64Array(MAX_STAGES + 1),
+    count: 0,
+    turbineWorkKJ: 0,
+    reheatHeatKJ: 0,
+    gas: newPolynomial(),
+    seeded: false,
+  };
+}
+
+// One scratch pass, sized for the most stages. The engine is synchronous and a pass never
+// outlives its evaluation, so one shared set of arrays serves every evaluation without
+// allocating (allocation and collection cost more than the arithmetic of a pass).
+const SHARED_PASS = newTrainPass();
+
+/** The scratch pass for a new evaluation (valid until the next evaluation starts). */
+export function freshTrainPass(): TrainPass {
+  SHARED_PASS.seeded = false;
+  return SHARED_PASS;
+}
+
+/**
+ * Runs combustor, turbine stages and reheaters for the combustor inlet enthalpy
+ * `combustorInletEnthalpy` (kJ per kg of air) into `pass`. Throws EngineInputError for a
+ * burner that cannot reach its temperature, a reheat not above the stage exit, or a state
+ * outside the property data.
+ */
+export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: TrainPass): void {
+  const change = s.change;
+  // Air modes: the gas is the air throughout. Combustion: a scratch polynomial re-blended at each burner.
+  const gas = change ? pass.gas : s.air;
+  let fuelKg = 0;
+  if (change) {
+    const rise = s.airEnthalpyAtInlet - combustorInletEnthalpy;
+    if (!(rise > 0)) {
+      const inletK = temperatureFromEnthalpyOf(s.air, combustorInletEnthalpy, s.coldInletK);
+      throw new EngineInputError(
+        'turbine.inletTemperatureK',
+        `The turbine inlet temperature (${s.inletK} K) must be above the gas temperature entering it (${inletK.toFixed(1)} K).`,
+      );
+    }
+    fuelKg = burntToReach(s, rise, s.releaseToInlet, 0, 'turbine.inletTemperatureK', s.inletK);
+    blendPolynomials(pass.gas, s.air, change, fuelKg);
+  }
+  let t = s.inletK;
+  let h = s.airEnthalpyAtInlet + fuelKg * s.changeEnthalpyAtInlet;
+  let entropy = s.airEntropyAtInlet + fuelKg * s.changeEntropyAtInlet;
+  record(pass, 0, t, h, fuelKg);
+  let turbineWorkKJ = 0;
+  let reheatHeatKJ = 0;
+  const m = s.stages;
+  // Temperature ratios of the previous stage: stages behind a reheat start where the first
+  // started, so its ratios are close guesses on the first pass.
+  let isentropicRatio = 0;
+  let exitRatio = 0;
+  for (let j = 1; j <= m; j++) {
+    // Isentropic exit: S(T2s) = S(T1) + Ru n ln(p2/p1). Seeded by this stage's result of the
+    // previous pass (which differs only by the change of fuel), else by the ratios of the
+    // stage before, else (first stage, first pass) by the constant-cp answer at the inlet.
+    const rn = RU * (s.airMoles + fuelKg * s.changeMoles);
+    const isentropicGuess = pass.seeded
+      ? pass.isentropicK[j]
+      : j > 1
+        ? t * isentropicRatio
+        : t * Math.exp((s.logStagePressureRatio * rn) / cpOf(gas, t));
+    const isentropicK = temperatureFromStandardEntropyOf(gas, entropy + rn * s.logStagePressureRatio, isentropicGuess);
+    const isentropicEnthalpy = enthalpyOf(gas, isentropicK);
+    const exitEnthalpy = h - s.efficiency * (h - isentropicEnthalpy);
+    // T(h) seeded likewise; the first stage of the first pass takes one linear step from the isentropic exit.
+    const k = 2 * j - 1;
+    const exitGuess = pass.seeded
+      ? pass.temperatureK[k]
+      : j > 1
+        ? t * exitRatio
+        : isentropicK + (exitEnthalpy - isentropicEnthalpy) / cpOf(gas, isentropicK);
+    const exitK = temperatureFromEnthalpyOf(gas, exitEnthalpy, exitGuess);
+    isentropicRatio = isentropicK / t;
+    exitRatio = exitK / t;
+    checkExit(exitK, j);
+    pass.isentropicK[j] = isentropicK;
+    record(pass, k, exitK, exitEnthalpy, fuelKg);
+    turbineWorkKJ += h - exitEnthalpy;
+    h = exitEnthalpy;
+    t = exitK;
+    if (j === m) break;
+    if (!(s.reheatK > exitK)) {
+      throw new EngineInputError(
+        'turbine.reheatTemperatureK',
+        `The reheat temperature (${s.reheatK} K) must be above the turbine ${j} exit temperature (${exitK.toFixed(1)} K).`,
+      );
+    }
+    const reheatedAir = s.airEnthalpyAtReheat;
+    if (change) {
+      const rise = reheatedAir + fuelKg * s.changeEnthalpyAtReheat - h;
+      fuelKg = burntToReach(s, rise, s.releaseToReheat, fuelKg, 'turbine.reheatTemperatureK', s.reheatK);
+      blendPolynomials(pass.gas, s.air, change, fuelKg);
+    } else {
+      reheatHeatKJ += reheatedAir - h;
+    }
+    t = s.reheatK;
+    h = reheatedAir + fuelKg * s.changeEnthalpyAtReheat;
+    entropy = s.airEntropyAtReheat + fuelKg * s.changeEntropyAtReheat;
+    record(pass, k + 1, t, h, fuelKg);
+  }
+  pass.count = 2 * m;
+  pass.turbineWorkKJ = turbineWorkKJ;
+  pass.reheatHeatKJ = reheatHeatKJ;
+  pass.seeded = true;
+}
+
+/**
+ * Regenerator duty Q = ε Q_max that the exhaust of `pass` gives air entering at the
+ * compressor exit, kJ per kg of air (see regenerate in processes/heat-exchange.ts for the
+ * definition; cold mass 1, hot mass 1 + fuel). Q_max is the smaller in magnitude of
+ * H_air(T_h,in) − H_air(T_c,in) and H_h,in − H_h(T_c,in).
+ */
+export function regeneratorDuty(s: TrainSetup, pass: TrainPass): number {
+  const last = pass.count - 1;
+  const hotK = pass.temperatureK[last];
+  const coldMax = enthalpyOf(s.air, hotK) - s.coldInletEnthalpy;
+  // The exhaust's enthalpy at the cold inlet temperature: linear in the fuel burnt.
+  const hotAtColdInlet = s.coldInletEnthalpy + pass.fuelKg[last] * s.changeEnthalpyAtColdInlet;
+  const hotMax = pass.enthalpy[last] - hotAtColdInlet;
+  return s.effectiveness * (Math.abs(coldMax) <= Math.abs(hotMax) ? coldMax : hotMax);
+}
+
+function record(pass: TrainPass, k: number, temperatureK: number, enthalpy: number, fuelKg: number): void {
+  pass.temperatureK[k] = temperatureK;
+  pass.enthalpy[k] = enthalpy;
+  pass.fuelKg[k] = fuelKg;
+}
+
+/**
+ * Total fuel burnt after a burner that must raise the gas's enthalpy by `rise` (kJ per kg
+ * of air, positive) when each kg of fuel releases `release`: the products are linear in the
+ * fuel (see burnForRise in processes/combustion.ts), so fuel = rise / release, no iteration.
+ */
+function burntToReach(s: TrainSetup, rise: number, release: number, burntBefore: number, field: string, outletK: number): number {
+  const fuelKg = burntBefore + rise / release;
+  if (!(release > 0) || !(fuelKg <= s.maxFuelKg)) {
+    throw new EngineInputError(field, `Reaching ${outletK} K would need more fuel than the oxygen in the gas can burn; lower the temperature.`);
+  }
+  return fuelKg;
+}
+
+function checkExit(temperatureK: number, stage: number): void {
+  // The message is built only on failure: this runs for every stage of every pass.
+  if (!(temperatureK >= MIN_K && temperatureK <= MAX_K)) {
+    throw new EngineInputError(
+      'compressor.pressureRatio',
+      `The turbine ${stage} exit temperature would be ${Number.isFinite(temperatureK) ? temperatureK.toFixed(1) + ' K' : 'undefined'}, outside the range of the property data (${MIN_K}–${MAX_K} K).`,
+    );
+  }
+}
