@@ -1,9 +1,12 @@
 import { EngineInputError } from '../errors';
 import { ISA_MAX_ELEVATION_M, ISA_MIN_ELEVATION_M, isaPressureKPa } from '../properties/isa-atmosphere';
-import { POLYNOMIAL_MAX_K, POLYNOMIAL_MIN_K } from '../properties/nasa-species';
+import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K } from '../properties/nasa-species';
 import type { CycleInput, WorkingFluid } from './types';
 
 export const MAX_STAGES = 100;
+// Local copies: an imported binding is a getter once transpiled, read on every check.
+const POLYNOMIAL_MIN_K = DATA_MIN_K;
+const POLYNOMIAL_MAX_K = DATA_MAX_K;
 
 /** The input with every default filled in and every value checked. */
 export interface ResolvedInput {

@@ -1,14 +1,14 @@
 import { EngineInputError } from '../errors';
-import { type Fuel, type GasStream, burnFuel, fuelRelease, makeFuel, makeStream } from '../processes/combustion';
+import { type Fuel, type GasStream, burnFuelInto, fuelEnthalpyAt, makeFuel, makeStream } from '../processes/combustion';
 import { compress } from '../processes/compression';
 import { type FlowState, stateAt, stateFromEnthalpy } from '../processes/flow-state';
 import { changeTemperature } from '../processes/heat-exchange';
-import { CONSTANT_CP_KJ_PER_KG_K, ConstantCpAir } from '../properties/constant-cp-air';
+import { ConstantCpAir } from '../properties/constant-cp-air';
 import type { GasModel } from '../properties/gas-model';
-import type { IdealGasMixture } from '../properties/ideal-gas-mixture';
+import { IdealGasMixture } from '../properties/ideal-gas-mixture';
 import { humidAir } from '../properties/humid-air';
 import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K } from '../properties/nasa-species';
-import { constantCpPolynomial, enthalpyOf, standardEntropyOf } from '../properties/property-polynomial';
+import { type Polynomial, enthalpyOf, standardEntropyOf } from '../properties/property-polynomial';
 import { type ResolvedInput, resolveInput } from './resolve-input';
 import { changingCompositionPath, isobarPath, polytropicPath } from './t-s-paths';
 import { type TrainPass, type TrainSetup, freshTrainPass, regeneratorDuty, runTrain } from './turbine-train';
@@ -43,13 +43,11 @@ interface InletAir {
   /** The same air as a stream (1 kg per kg of inlet air), for burning fuel in. */
   readonly stream: GasStream;
   /** Its property polynomial per kg (the gas's own), for the turbine train. */
-  readonly polynomial: readonly number[];
+  readonly polynomial: Polynomial;
 }
 let cachedAir: InletAir | null = null;
 let cachedFuel: Fuel | null = null;
 const CONSTANT_CP_AIR = new ConstantCpAir();
-/** The cold-air standard as a property polynomial (h = 0, s° = 0 at 298.15 K), for the turbine train. */
-const CONSTANT_CP_POLYNOMIAL = constantCpPolynomial(CONSTANT_CP_KJ_PER_KG_K, 298.15);
 
 function inletAir(r: ResolvedInput): InletAir {
   const key = `${r.ambientTemperatureK}|${r.ambientPressureKPa}|${r.relativeHumidity}`;
@@ -144,12 +142,30 @@ function trainSetup(
   compressorExit: FlowState,
   expansionRatio: number,
 ): TrainSetup {
-  const polynomial = air ? air.polynomial : CONSTANT_CP_POLYNOMIAL;
+  const polynomial = air ? air.polynomial : CONSTANT_CP_AIR.polynomial;
   const change = fuel && air ? fuel.changePolynomial : null;
-  const fuelK = r.fuel ? r.fuel.temperatureK : 0;
   const inletK = r.turbineInletTemperatureK;
   const reheatK = r.reheatTemperatureK;
   const coldInletK = compressorExit.temperatureK;
+  // Each of these costs a logarithm; the reheat temperature is by default the turbine inlet
+  // temperature, and then its values are the inlet's.
+  const sameReheat = reheatK === inletK;
+  const airEnthalpyAtInlet = enthalpyOf(polynomial, inletK);
+  const airEntropyAtInlet = standardEntropyOf(polynomial, inletK);
+  const airEnthalpyAtReheat = sameReheat ? airEnthalpyAtInlet : enthalpyOf(polynomial, reheatK);
+  const airEntropyAtReheat = sameReheat ? airEntropyAtInlet : standardEntropyOf(polynomial, reheatK);
+  let changeEnthalpyAtInlet = 0;
+  let changeEntropyAtInlet = 0;
+  let changeEnthalpyAtReheat = 0;
+  let changeEntropyAtReheat = 0;
+  let fuelEnthalpy = 0;
+  if (change && fuel && r.fuel) {
+    changeEnthalpyAtInlet = enthalpyOf(change, inletK);
+    changeEntropyAtInlet = standardEntropyOf(change, inletK);
+    changeEnthalpyAtReheat = sameReheat ? changeEnthalpyAtInlet : enthalpyOf(change, reheatK);
+    changeEntropyAtReheat = sameReheat ? changeEntropyAtInlet : standardEntropyOf(change, reheatK);
+    fuelEnthalpy = fuelEnthalpyAt(fuel, r.fuel.temperatureK);
+  }
   return {
     air: polynomial,
     airMoles: 1 / (air ? air.gas.molarMassKgPerKmol : CONSTANT_CP_AIR.molarMassKgPerKmol),
@@ -161,24 +177,37 @@ function trainSetup(
     reheatK,
     efficiency: r.turbineEfficiency,
     logStagePressureRatio: -Math.log(expansionRatio),
-    airEnthalpyAtInlet: enthalpyOf(polynomial, inletK),
-    airEntropyAtInlet: standardEntropyOf(polynomial, inletK),
-    changeEnthalpyAtInlet: change ? enthalpyOf(change, inletK) : 0,
-    changeEntropyAtInlet: change ? standardEntropyOf(change, inletK) : 0,
-    airEnthalpyAtReheat: enthalpyOf(polynomial, reheatK),
-    airEntropyAtReheat: standardEntropyOf(polynomial, reheatK),
-    changeEnthalpyAtReheat: change ? enthalpyOf(change, reheatK) : 0,
-    changeEntropyAtReheat: change ? standardEntropyOf(change, reheatK) : 0,
-    releaseToInlet: change && fuel ? fuelRelease(fuel, fuelK, inletK) : 0,
-    releaseToReheat: change && fuel ? fuelRelease(fuel, fuelK, reheatK) : 0,
+    airEnthalpyAtInlet,
+    airEntropyAtInlet,
+    changeEnthalpyAtInlet,
+    changeEntropyAtInlet,
+    airEnthalpyAtReheat,
+    airEntropyAtReheat,
+    changeEnthalpyAtReheat,
+    changeEntropyAtReheat,
+    // The heat each kg of fuel gives when its products leave at T: h_f(T_fuel) − Σ νᵢ hᵢ(T) (see fuelRelease).
+    releaseToInlet: fuelEnthalpy - changeEnthalpyAtInlet,
+    releaseToReheat: fuelEnthalpy - changeEnthalpyAtReheat,
     effectiveness: r.regenerator ? r.regenerator.effectiveness : 0,
     coldInletK,
     coldInletEnthalpy: compressorExit.enthalpyKJPerKg,
-    changeEnthalpyAtColdInlet: change ? enthalpyOf(change, coldInletK) : 0,
+    changeEnthalpyAtColdInlet: change && r.regenerator ? enthalpyOf(change, coldInletK) : 0,
   };
 }
 
 const OXYGEN = 1;
+
+// Mixtures of the products after each burner, reused from one evaluation to the next (a
+// new mixture allocates its polynomial, which costs more than filling it). Safe because the
+// engine is synchronous and the gases never leave an evaluation: states and paths are built
+// from them before it returns, and the result carries numbers only.
+const PRODUCT_GASES: IdealGasMixture[] = [];
+
+function productGas(burner: number): IdealGasMixture {
+  let gas = PRODUCT_GASES[burner];
+  if (!gas) gas = PRODUCT_GASES[burner] = new IdealGasMixture([1, 0, 0, 0, 0, 0, 0]);
+  return gas;
+}
 
 /**
  * The states of the hot section (combustor exit, turbine and reheater exits) from the
@@ -195,7 +224,6 @@ function hotRecords(
   r: ResolvedInput,
   records: StateRecord[],
 ): number {
-  let stream = airStream;
   let gas = airGas;
   let mass = 1;
   let pressureKPa = turbineInletKPa;
@@ -206,11 +234,11 @@ function hotRecords(
   const reheaterLabels = stageLabels('reheater', m, ' exit');
   for (let k = 0; k < pass.count; k++) {
     const expansion = k % 2 === 1;
-    const burnt = !expansion && stream !== null && fuel !== null;
+    const burnt = !expansion && airStream !== null && fuel !== null;
     if (burnt) {
-      stream = burnFuel(stream!, pass.fuelKg[k] - stream!.fuelBurnt, fuel!);
-      gas = stream.gas;
-      mass = stream.mass;
+      const products = productGas(k / 2);
+      mass = burnFuelInto(products, airStream!, pass.fuelKg[k], fuel!);
+      gas = products;
     }
     if (expansion) pressureKPa /= expansionRatio;
     else if (k > 0) pressureKPa *= 1 - r.reheaterPressureLoss;

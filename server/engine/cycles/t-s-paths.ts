@@ -1,6 +1,14 @@
 import type { FlowState } from '../processes/flow-state';
 import type { GasModel } from '../properties/gas-model';
+import { STANDARD_PRESSURE_KPA } from '../properties/nasa-species';
+import * as propertyPolynomial from '../properties/property-polynomial';
 import type { PathKind, ProcessPath } from './types';
+
+// The points are evaluated on the gases' property polynomials directly (one call per point
+// instead of a method that calls the polynomial through an imported binding, which once
+// transpiled is a getter call per point). Local copies of the bindings for the same reason.
+const entropyOf = propertyPolynomial.standardEntropyOf;
+const P0_KPA = STANDARD_PRESSURE_KPA;
 
 /**
  * Path of a non-ideal compression or expansion, drawn as the process of constant
@@ -20,14 +28,15 @@ export function polytropicPath(
 ): ProcessPath {
   const temperatureK: number[] = new Array(points);
   const entropyKJPerKgK: number[] = new Array(points);
-  const s0a = gas.standardEntropyKJPerKgK(a.temperatureK);
-  const span = gas.standardEntropyKJPerKgK(b.temperatureK) - s0a;
+  const p = gas.polynomial;
+  const s0a = entropyOf(p, a.temperatureK);
+  const span = entropyOf(p, b.temperatureK) - s0a;
   const c = span !== 0 ? (b.entropyKJPerKgK - a.entropyKJPerKgK) / span : 0;
   const last = points - 1;
   for (let j = 0; j <= last; j++) {
     const t = a.temperatureK + ((b.temperatureK - a.temperatureK) * j) / last;
     temperatureK[j] = t;
-    entropyKJPerKgK[j] = a.entropyKJPerKgK + c * (gas.standardEntropyKJPerKgK(t) - s0a);
+    entropyKJPerKgK[j] = a.entropyKJPerKgK + c * (entropyOf(p, t) - s0a);
   }
   entropyKJPerKgK[last] = b.entropyKJPerKgK;
   return { kind, from, to, temperatureK, entropyKJPerKgK };
@@ -52,14 +61,16 @@ export function isobarPath(
   // s = s°(T) − R ln(p/p0) with p linear in the fraction: where the part has no loss the
   // pressure term is one constant, which saves a logarithm per point.
   const lossless = a.pressureKPa === b.pressureKPa;
-  const pressureTerm = gas.entropyKJPerKgK(a.temperatureK, a.pressureKPa) - gas.standardEntropyKJPerKgK(a.temperatureK);
+  const p = gas.polynomial;
+  const r = gas.gasConstantKJPerKgK;
+  const pressureTerm = -r * Math.log(a.pressureKPa / P0_KPA);
   for (let j = 0; j <= last; j++) {
     const fraction = j / last;
     const t = a.temperatureK + (b.temperatureK - a.temperatureK) * fraction;
     temperatureK[j] = t;
     entropyKJPerKgK[j] = lossless
-      ? gas.standardEntropyKJPerKgK(t) + pressureTerm
-      : gas.entropyKJPerKgK(t, a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction);
+      ? entropyOf(p, t) + pressureTerm
+      : entropyOf(p, t) - r * Math.log((a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction) / P0_KPA);
   }
   entropyKJPerKgK[0] = a.entropyKJPerKgK;
   entropyKJPerKgK[last] = b.entropyKJPerKgK;
@@ -83,14 +94,16 @@ export function changingCompositionPath(
 ): ProcessPath {
   const temperatureK: number[] = new Array(points);
   const entropyKJPerKgK: number[] = new Array(points);
-  const shift = a.entropyKJPerKgK - outletGas.entropyKJPerKgK(a.temperatureK, a.pressureKPa);
+  const poly = outletGas.polynomial;
+  const r = outletGas.gasConstantKJPerKgK;
+  const shift = a.entropyKJPerKgK - (entropyOf(poly, a.temperatureK) - r * Math.log(a.pressureKPa / P0_KPA));
   const last = points - 1;
   for (let j = 0; j <= last; j++) {
     const fraction = j / last;
     const t = a.temperatureK + (b.temperatureK - a.temperatureK) * fraction;
     const p = a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction;
     temperatureK[j] = t;
-    entropyKJPerKgK[j] = outletGas.entropyKJPerKgK(t, p) + (1 - fraction) * shift;
+    entropyKJPerKgK[j] = entropyOf(poly, t) - r * Math.log(p / P0_KPA) + (1 - fraction) * shift;
   }
   entropyKJPerKgK[0] = a.entropyKJPerKgK;
   entropyKJPerKgK[last] = b.entropyKJPerKgK;

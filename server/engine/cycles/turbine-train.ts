@@ -14,7 +14,14 @@
  * The entropy of mixing is left out: at fixed composition it cancels from S(T2s) − S(T1).
  */
 import { EngineInputError } from '../errors';
-import {
+import * as propertyPolynomial from '../properties/property-polynomial';
+import type { Polynomial } from '../properties/property-polynomial';
+import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K, UNIVERSAL_GAS_CONSTANT } from '../properties/nasa-species';
+import { MAX_STAGES } from './resolve-input';
+
+// Local copies of the imported functions: once transpiled, every read of an imported binding
+// is a getter call, which the optimiser does not always inline, and these run in every pass.
+const {
   blendPolynomials,
   cpOf,
   enthalpyOf,
@@ -22,9 +29,7 @@ import {
   standardEntropyOf,
   temperatureFromEnthalpyOf,
   temperatureFromStandardEntropyOf,
-} from '../properties/property-polynomial';
-import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K, UNIVERSAL_GAS_CONSTANT } from '../properties/nasa-species';
-import { MAX_STAGES } from './resolve-input';
+} = propertyPolynomial;
 
 // Local copies: an imported binding is a property getter once transpiled, read per stage.
 const MIN_K = DATA_MIN_K;
@@ -34,10 +39,10 @@ const RU = UNIVERSAL_GAS_CONSTANT;
 /** What a pass needs, fixed for one evaluation. Enthalpies kJ and entropies kJ/K per kg of inlet air. */
 export interface TrainSetup {
   /** Property polynomial of the compressor inlet air, per kg of it (no mixing term needed). */
-  readonly air: readonly number[];
+  readonly air: Polynomial;
   readonly airMoles: number;
   /** Polynomial of the change per kg of fuel burnt; null when no fuel burns in the gas (air modes). */
-  readonly change: readonly number[] | null;
+  readonly change: Polynomial | null;
   readonly changeMoles: number;
   /** Fuel that would burn all the oxygen of the air, kg per kg of air. */
   readonly maxFuelKg: number;
@@ -83,7 +88,7 @@ export interface TrainPass {
   /** Air modes: enthalpy added in the reheaters. */
   reheatHeatKJ: number;
   /** Combustion: the polynomial of the gas after the last burner (scratch, overwritten by each pass). */
-  readonly gas: number[];
+  readonly gas: Polynomial;
   /** True once a pass has run in this evaluation, so its temperatures can seed the next. */
   seeded: boolean;
 }

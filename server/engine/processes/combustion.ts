@@ -7,7 +7,7 @@ import {
   massOfAmounts,
 } from '../properties/ideal-gas-mixture';
 import { SPECIES } from '../properties/nasa-species';
-import { polynomialFromCoefficients } from '../properties/property-polynomial';
+import { type Polynomial, polynomialFromCoefficients } from '../properties/property-polynomial';
 
 const O2 = 1;
 const CO2 = 3;
@@ -38,7 +38,7 @@ export interface Fuel {
   /** Extensive polynomial of 1 kg of unburnt fuel: its absolute enthalpy in kJ/kg via enthalpyOfCoefficients (200–6000 K). */
   readonly fuelCoefficients: Float64Array;
   /** The change as a property polynomial (property-polynomial.ts): kJ and kJ/K per kg of fuel burnt, no mixing term. */
-  readonly changePolynomial: readonly number[];
+  readonly changePolynomial: Polynomial;
   /** kmol of gas gained per kg of fuel burnt (Σ νᵢ). */
   readonly changeMolesPerKg: number;
 }
@@ -118,7 +118,12 @@ export function burnToTemperature(stream: GasStream, inletK: number, outletK: nu
  * h_f(T_f) − Σ νᵢ hᵢ(T_out), kJ per kg of fuel (the denominator above). 200–6000 K.
  */
 export function fuelRelease(fuel: Fuel, fuelK: number, outletK: number): number {
-  return enthalpyOfCoefficients(fuel.fuelCoefficients, fuelK) - enthalpyOfCoefficients(fuel.changeCoefficients, outletK);
+  return fuelEnthalpyAt(fuel, fuelK) - enthalpyOfCoefficients(fuel.changeCoefficients, outletK);
+}
+
+/** Absolute enthalpy of the unburnt fuel at `fuelK`, kJ per kg of fuel. 200–6000 K. */
+export function fuelEnthalpyAt(fuel: Fuel, fuelK: number): number {
+  return enthalpyOfCoefficients(fuel.fuelCoefficients, fuelK);
 }
 
 /**
@@ -163,4 +168,26 @@ export function burnFuel(stream: GasStream, fuelKg: number, fuel: Fuel): GasStre
   for (let k = 0; k < LENGTH; k++) coefficients[k] = c[k] + fuelKg * d[k];
   const mass = stream.mass + fuelKg;
   return { amounts, mass, fuelBurnt: stream.fuelBurnt + fuelKg, gas: new IdealGasMixture(amounts, coefficients, mass), coefficients };
+}
+
+// Scratch vectors of burnFuelInto: the mixture copies what it keeps, so they are free again on return.
+const SCRATCH_AMOUNTS: number[] = [0.5, 0.5, 0.5, 0.5, 0.5, 0.5, 0.5];
+const SCRATCH_COEFFICIENTS: number[] = new Array<number>(EXTENSIVE_LENGTH).fill(0.5);
+
+/**
+ * burnFuel into an existing mixture (IdealGasMixture.setComposition), allocating nothing:
+ * the products of burning `fuelKg` of the fuel in the stream. Returns their mass, kg per kg
+ * of inlet air. The caller checks that the oxygen suffices.
+ */
+export function burnFuelInto(mixture: IdealGasMixture, stream: GasStream, fuelKg: number, fuel: Fuel): number {
+  const change = fuel.changePerKg;
+  const n = stream.amounts;
+  for (let i = 0; i < SPECIES_COUNT; i++) SCRATCH_AMOUNTS[i] = n[i] + fuelKg * change[i];
+  if (SCRATCH_AMOUNTS[O2] < 0) SCRATCH_AMOUNTS[O2] = 0; // rounding can leave −1e-20 of O2 at stoichiometric burning
+  const c = stream.coefficients;
+  const d = fuel.changeCoefficients;
+  for (let k = 0; k < LENGTH; k++) SCRATCH_COEFFICIENTS[k] = c[k] + fuelKg * d[k];
+  const mass = stream.mass + fuelKg;
+  mixture.setComposition(SCRATCH_AMOUNTS, SCRATCH_COEFFICIENTS, mass);
+  return mass;
 }

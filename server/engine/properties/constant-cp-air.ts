@@ -1,5 +1,6 @@
 import type { GasModel } from './gas-model';
 import { STANDARD_PRESSURE_KPA } from './nasa-species';
+import { constantCpPolynomial } from './property-polynomial';
 
 /** Ratio of specific heats of the cold-air standard. */
 export const CONSTANT_CP_K = 1.4;
@@ -16,6 +17,8 @@ const P0_KPA = STANDARD_PRESSURE_KPA; // local copy: imported bindings are gette
 export class ConstantCpAir implements GasModel {
   readonly gasConstantKJPerKgK = (CONSTANT_CP_KJ_PER_KG_K * (CONSTANT_CP_K - 1)) / CONSTANT_CP_K;
   readonly molarMassKgPerKmol = 8.314462618 / this.gasConstantKJPerKgK;
+  /** h and s° above as a polynomial (a3 = cp, b1 = −cp·298.15, b2 = −cp ln 298.15); equal to round-off. */
+  readonly polynomial = constantCpPolynomial(CONSTANT_CP_KJ_PER_KG_K, REFERENCE_K);
 
   cpKJPerKgK(): number {
     return CONSTANT_CP_KJ_PER_KG_K;

@@ -1,3 +1,5 @@
+import type { Polynomial } from './property-polynomial';
+
 /**
  * What the processes need from a working fluid: specific properties on a mass basis.
  * Units: K, kPa, kJ/kg, kJ/(kg·K).
@@ -7,6 +9,9 @@ export interface GasModel {
   readonly molarMassKgPerKmol: number;
   /** Specific gas constant R = Ru / M, kJ/(kg·K). */
   readonly gasConstantKJPerKgK: number;
+  /** The same cp, h and s° as one property polynomial per kg (property-polynomial.ts), for
+   * the loops that evaluate many points (turbine train, T-s paths). */
+  readonly polynomial: Polynomial;
   /** Specific heat at constant pressure, kJ/(kg·K). */
   cpKJPerKgK(temperatureK: number): number;
   /** Specific enthalpy, kJ/kg (reference state stated by each model). */

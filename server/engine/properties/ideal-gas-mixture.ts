@@ -7,14 +7,8 @@ import {
   STANDARD_PRESSURE_KPA,
   UNIVERSAL_GAS_CONSTANT,
 } from './nasa-species';
-import {
-  cpOf,
-  enthalpyOf,
-  polynomialFromCoefficients,
-  standardEntropyOf,
-  temperatureFromEnthalpyOf,
-  temperatureFromStandardEntropyOf,
-} from './property-polynomial';
+import * as propertyPolynomial from './property-polynomial';
+import type { Polynomial } from './property-polynomial';
 
 /** Amount of each species, kmol, in SPECIES_ORDER (N2, O2, Ar, CO2, H2O, CH4, H2). */
 export type SpeciesAmounts = ArrayLike<number>;
@@ -37,6 +31,16 @@ const MOLAR_COEFFICIENTS = SPECIES_ORDER.map((name) => {
   }
   return c;
 });
+// Local copies of the imported functions, for the same reason: the methods below call them.
+const {
+  cpOf,
+  enthalpyOf,
+  fillPolynomial,
+  newPolynomial,
+  standardEntropyOf,
+  temperatureFromEnthalpyOf,
+  temperatureFromStandardEntropyOf,
+} = propertyPolynomial;
 const BREAK_K = POLYNOMIAL_BREAK_K;
 const RU = UNIVERSAL_GAS_CONSTANT;
 const P0_KPA = STANDARD_PRESSURE_KPA;
@@ -90,10 +94,10 @@ export function enthalpyOfCoefficients(coefficients: ArrayLike<number>, temperat
  * mixing −R Σ xᵢ ln xᵢ, so states of different composition sit on one entropy scale.
  */
 export class IdealGasMixture implements GasModel {
-  readonly molarMassKgPerKmol: number;
-  readonly gasConstantKJPerKgK: number;
+  molarMassKgPerKmol = 0;
+  gasConstantKJPerKgK = 0;
   /** The specific properties as one property polynomial (see property-polynomial.ts), kJ/kg units. */
-  readonly polynomial: readonly number[];
+  readonly polynomial: Polynomial = newPolynomial();
 
   /**
    * `amounts`: kmol of each species in SPECIES_ORDER, none negative, sum positive.
@@ -101,6 +105,15 @@ export class IdealGasMixture implements GasModel {
    * and massOfAmounts of the same amounts), as the burner does.
    */
   constructor(amounts: SpeciesAmounts, coefficients?: ArrayLike<number>, massKg?: number) {
+    this.setComposition(amounts, coefficients, massKg);
+  }
+
+  /**
+   * Makes this mixture one of other amounts, in place (arguments as for the constructor).
+   * For scratch mixtures that the cycle reuses from one evaluation to the next: a new
+   * mixture allocates its polynomial, which costs more than filling it.
+   */
+  setComposition(amounts: SpeciesAmounts, coefficients?: ArrayLike<number>, massKg?: number): void {
     let total = 0;
     for (let i = 0; i < SPECIES_COUNT; i++) {
       if (!(amounts[i] >= 0)) throw new RangeError('Species amounts must be zero or positive.');
@@ -116,7 +129,7 @@ export class IdealGasMixture implements GasModel {
       const x = amounts[i] / total;
       if (x > 0) mixingEntropy -= x * Math.log(x);
     }
-    this.polynomial = polynomialFromCoefficients(c, 1 / mass, mixingEntropy * this.gasConstantKJPerKgK);
+    fillPolynomial(this.polynomial, c, 1 / mass, mixingEntropy * this.gasConstantKJPerKgK);
   }
 
   /** cp(T) = R (a1 T⁻² + a2 T⁻¹ + a3 + a4 T + … + a7 T⁴), kJ/(kg·K). Valid 200–6000 K. */

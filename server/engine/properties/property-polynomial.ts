@@ -9,10 +9,10 @@
  * Units follow the coefficients: per kg (kJ/kg, kJ/(kg·K)) for a mixture's specific
  * properties, or per kg of compressor inlet air (kJ, kJ/K) for a stream. Valid 200–6000 K.
  *
- * Polynomials are plain arrays, all made by newPolynomial: V8 keeps a typed array of more
- * than 64 bytes outside its heap, and allocating one costs about a microsecond, ten times
- * the arithmetic of a burner; one way of making them also keeps every property call
- * monomorphic (one element kind).
+ * Polynomials are plain arrays, all made by newPolynomial (one element kind, so every
+ * property call stays monomorphic). Not Float64Arrays: V8 keeps a typed array of more than
+ * 64 bytes outside its heap, and allocating one costs about a microsecond, ten times the
+ * arithmetic of a burner. Mixtures made per evaluation are refilled in place anyway.
  *
  * Every number is linear in the species coefficients, so the polynomial of a gas whose
  * composition is a base plus w times a change (air plus the products of w kg of fuel) is
@@ -34,14 +34,18 @@ const INVERSION_MAX_K = 20000;
 const INVERSION_RELATIVE_TOLERANCE = 1e-12;
 const ACCEPT_STEP_RELATIVE = 1e-6;
 
-/** A polynomial of zeros, to be filled. */
-export function newPolynomial(): number[] {
-  const out: number[] = new Array(POLYNOMIAL_LENGTH);
-  for (let k = 0; k < POLYNOMIAL_LENGTH; k++) out[k] = 0;
+/** A property polynomial: 2 × 23 numbers (see above). */
+export type Polynomial = number[];
+
+/** A polynomial to be filled. */
+export function newPolynomial(): Polynomial {
+  // Filled with a double, so that every polynomial has one element kind (double) from the start.
+  const out: Polynomial = new Array(POLYNOMIAL_LENGTH);
+  for (let k = 0; k < POLYNOMIAL_LENGTH; k++) out[k] = 0.5;
   return out;
 }
 
-function fillRange(out: number[], at: number, c: ArrayLike<number>, o: number, scale: number, entropyOffset: number): void {
+function fillRange(out: Polynomial, at: number, c: ArrayLike<number>, o: number, scale: number, entropyOffset: number): void {
   const a1 = c[o] * scale;
   const a2 = c[o + 1] * scale;
   const a3 = c[o + 2] * scale;
@@ -79,18 +83,23 @@ function fillRange(out: number[], at: number, c: ArrayLike<number>, o: number, s
  * (see extensiveCoefficients), multiplied by `scale` (1 / mass for specific properties), with
  * `entropyOffset` added to s° (the entropy of mixing, in the same units).
  */
-export function polynomialFromCoefficients(coefficients: ArrayLike<number>, scale: number, entropyOffset: number): number[] {
+export function polynomialFromCoefficients(coefficients: ArrayLike<number>, scale: number, entropyOffset: number): Polynomial {
   const out = newPolynomial();
+  fillPolynomial(out, coefficients, scale, entropyOffset);
+  return out;
+}
+
+/** polynomialFromCoefficients into an existing polynomial, in place. */
+export function fillPolynomial(out: Polynomial, coefficients: ArrayLike<number>, scale: number, entropyOffset: number): void {
   fillRange(out, 0, coefficients, 0, scale, entropyOffset);
   fillRange(out, RANGE, coefficients, HIGH_COEFFICIENTS, scale, entropyOffset);
-  return out;
 }
 
 /**
  * The polynomial of a constant cp (kJ/(kg·K)) with h = 0 and s° = 0 at `referenceK`:
  * a3 = cp, b1 = −cp T_ref, b2 = −cp ln T_ref, every other coefficient zero, both ranges alike.
  */
-export function constantCpPolynomial(cp: number, referenceK: number): number[] {
+export function constantCpPolynomial(cp: number, referenceK: number): Polynomial {
   const c: number[] = new Array(2 * COEFFICIENTS_PER_RANGE).fill(0);
   for (const o of [0, COEFFICIENTS_PER_RANGE]) {
     c[o + 2] = cp;
@@ -101,12 +110,12 @@ export function constantCpPolynomial(cp: number, referenceK: number): number[] {
 }
 
 /** out = base + amount × change, number by number (the gas of base plus `amount` of change). */
-export function blendPolynomials(out: number[], base: readonly number[], change: readonly number[], amount: number): void {
+export function blendPolynomials(out: Polynomial, base: Polynomial, change: Polynomial, amount: number): void {
   for (let k = 0; k < POLYNOMIAL_LENGTH; k++) out[k] = base[k] + amount * change[k];
 }
 
 /** cp(T) from a property polynomial. 200–6000 K. */
-export function cpOf(p: readonly number[], temperatureK: number): number {
+export function cpOf(p: Polynomial, temperatureK: number): number {
   const o = temperatureK < BREAK_K ? 0 : RANGE;
   const t = temperatureK;
   const u = 1 / t;
@@ -114,7 +123,7 @@ export function cpOf(p: readonly number[], temperatureK: number): number {
 }
 
 /** h(T) from a property polynomial. 200–6000 K. */
-export function enthalpyOf(p: readonly number[], temperatureK: number): number {
+export function enthalpyOf(p: Polynomial, temperatureK: number): number {
   const o = temperatureK < BREAK_K ? 0 : RANGE;
   const t = temperatureK;
   // a2 is zero for the whole range of some gases (constant-cp air, argon below 1000 K):
@@ -125,7 +134,7 @@ export function enthalpyOf(p: readonly number[], temperatureK: number): number {
 }
 
 /** s°(T) from a property polynomial (at 100 kPa). 200–6000 K. */
-export function standardEntropyOf(p: readonly number[], temperatureK: number): number {
+export function standardEntropyOf(p: Polynomial, temperatureK: number): number {
   const o = temperatureK < BREAK_K ? 0 : RANGE;
   const t = temperatureK;
   const u = 1 / t;
@@ -139,19 +148,19 @@ export function standardEntropyOf(p: readonly number[], temperatureK: number): n
  * step, falling back to bisection if a step leaves it; to 1e-12 relative. `guessK` seeds it:
  * from a guess within a kelvin or so one evaluation is enough (see invert).
  */
-export function temperatureFromEnthalpyOf(p: readonly number[], enthalpy: number, guessK: number): number {
+export function temperatureFromEnthalpyOf(p: Polynomial, enthalpy: number, guessK: number): number {
   return invert(p, enthalpy, guessK, false);
 }
 
 /** T(s°) by the same safeguarded Newton iteration (ds°/dT = cp / T > 0); to 1e-12 relative. */
-export function temperatureFromStandardEntropyOf(p: readonly number[], standardEntropy: number, guessK: number): number {
+export function temperatureFromStandardEntropyOf(p: Polynomial, standardEntropy: number, guessK: number): number {
   return invert(p, standardEntropy, guessK, true);
 }
 
 // One loop for both inversions; written out rather than through a generic solver with
 // closures because it runs a dozen times per cycle evaluation. Value and slope come from
 // one pass over the coefficients, sharing 1/T and ln T (the logarithm is the dearest part).
-function invert(p: readonly number[], target: number, guessK: number, entropy: boolean): number {
+function invert(p: Polynomial, target: number, guessK: number, entropy: boolean): number {
   let lo = INVERSION_MIN_K;
   let hi = INVERSION_MAX_K;
   let t = guessK > lo && guessK < hi ? guessK : 800;
