@@ -1,6 +1,6 @@
 import { EngineInputError } from '../errors';
 import { type Fuel, type GasStream, burnFuelInto, fuelEnthalpyAt, makeFuel, makeStream } from '../processes/combustion';
-import { compress } from '../processes/compression';
+import { compress, newStageSeed } from '../processes/compression';
 import { type FlowState, stateAt, stateFromEnthalpy } from '../processes/flow-state';
 import { changeTemperature } from '../processes/heat-exchange';
 import { ConstantCpAir } from '../properties/constant-cp-air';
@@ -8,7 +8,7 @@ import type { GasModel } from '../properties/gas-model';
 import { IdealGasMixture } from '../properties/ideal-gas-mixture';
 import { humidAir } from '../properties/humid-air';
 import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K } from '../properties/nasa-species';
-import { type Polynomial, enthalpyOf, standardEntropyOf } from '../properties/property-polynomial';
+import { type Polynomial, enthalpyOf, enthalpyWithLog, standardEntropyWithLog } from '../properties/property-polynomial';
 import { type ResolvedInput, resolveInput } from './resolve-input';
 import { changingCompositionPath, isobarPath, polytropicPath } from './t-s-paths';
 import { type TrainPass, type TrainSetup, freshTrainPass, regeneratorDuty, runTrain } from './turbine-train';
@@ -150,20 +150,23 @@ function trainSetup(
   // Each of these costs a logarithm; the reheat temperature is by default the turbine inlet
   // temperature, and then its values are the inlet's.
   const sameReheat = reheatK === inletK;
-  const airEnthalpyAtInlet = enthalpyOf(polynomial, inletK);
-  const airEntropyAtInlet = standardEntropyOf(polynomial, inletK);
-  const airEnthalpyAtReheat = sameReheat ? airEnthalpyAtInlet : enthalpyOf(polynomial, reheatK);
-  const airEntropyAtReheat = sameReheat ? airEntropyAtInlet : standardEntropyOf(polynomial, reheatK);
+  // One logarithm per temperature serves h and s° of air and change there.
+  const lnInlet = Math.log(inletK);
+  const lnReheat = sameReheat ? lnInlet : Math.log(reheatK);
+  const airEnthalpyAtInlet = enthalpyWithLog(polynomial, inletK, lnInlet);
+  const airEntropyAtInlet = standardEntropyWithLog(polynomial, inletK, lnInlet);
+  const airEnthalpyAtReheat = sameReheat ? airEnthalpyAtInlet : enthalpyWithLog(polynomial, reheatK, lnReheat);
+  const airEntropyAtReheat = sameReheat ? airEntropyAtInlet : standardEntropyWithLog(polynomial, reheatK, lnReheat);
   let changeEnthalpyAtInlet = 0;
   let changeEntropyAtInlet = 0;
   let changeEnthalpyAtReheat = 0;
   let changeEntropyAtReheat = 0;
   let fuelEnthalpy = 0;
   if (change && fuel && r.fuel) {
-    changeEnthalpyAtInlet = enthalpyOf(change, inletK);
-    changeEntropyAtInlet = standardEntropyOf(change, inletK);
-    changeEnthalpyAtReheat = sameReheat ? changeEnthalpyAtInlet : enthalpyOf(change, reheatK);
-    changeEntropyAtReheat = sameReheat ? changeEntropyAtInlet : standardEntropyOf(change, reheatK);
+    changeEnthalpyAtInlet = enthalpyWithLog(change, inletK, lnInlet);
+    changeEntropyAtInlet = standardEntropyWithLog(change, inletK, lnInlet);
+    changeEnthalpyAtReheat = sameReheat ? changeEnthalpyAtInlet : enthalpyWithLog(change, reheatK, lnReheat);
+    changeEntropyAtReheat = sameReheat ? changeEntropyAtInlet : standardEntropyWithLog(change, reheatK, lnReheat);
     fuelEnthalpy = fuelEnthalpyAt(fuel, r.fuel.temperatureK);
   }
   return {
@@ -291,8 +294,9 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
   let current = inlet;
   const compressorLabels = stageLabels('compressor', n, ' exit');
   const intercoolerLabels = stageLabels('intercooler', n, ' exit');
+  const seed = newStageSeed();
   for (let i = 1; i <= n; i++) {
-    const exit = compress(airGas, current, stageRatio, r.compressorEfficiency);
+    const exit = compress(airGas, current, stageRatio, r.compressorEfficiency, seed);
     checkStageTemperature(exit.temperatureK, 'compressor', i);
     compressorWorkKJ += exit.enthalpyKJPerKg - current.enthalpyKJPerKg;
     records.push({ label: compressorLabels[i], state: exit, gas: airGas, mass: 1, process: 'compression', burnt: false });

@@ -83,14 +83,20 @@ export interface TrainPass {
   readonly fuelKg: Float64Array;
   /** Isentropic exit temperature of each stage (index 1…M), kept to seed the next pass. */
   readonly isentropicK: Float64Array;
+  /** The isentropic and actual exit temperatures of each stage one pass further back, and the
+   * combustor inlet enthalpies of the last two passes: the next pass extrapolates from them. */
+  readonly previousIsentropicK: Float64Array;
+  readonly previousExitK: Float64Array;
+  inletEnthalpy: number;
+  previousInletEnthalpy: number;
   count: number;
   turbineWorkKJ: number;
   /** Air modes: enthalpy added in the reheaters. */
   reheatHeatKJ: number;
   /** Combustion: the polynomial of the gas after the last burner (scratch, overwritten by each pass). */
   readonly gas: Polynomial;
-  /** True once a pass has run in this evaluation, so its temperatures can seed the next. */
-  seeded: boolean;
+  /** Passes run in this evaluation, so far. */
+  passes: number;
 }
 
 function newTrainPass(): TrainPass {
@@ -100,11 +106,15 @@ function newTrainPass(): TrainPass {
     enthalpy: new Float64Array(states),
     fuelKg: new Float64Array(states),
     isentropicK: new Float64Array(MAX_STAGES + 1),
+    previousIsentropicK: new Float64Array(MAX_STAGES + 1),
+    previousExitK: new Float64Array(MAX_STAGES + 1),
+    inletEnthalpy: 0,
+    previousInletEnthalpy: 0,
     count: 0,
     turbineWorkKJ: 0,
     reheatHeatKJ: 0,
     gas: newPolynomial(),
-    seeded: false,
+    passes: 0,
   };
 }
 
@@ -115,7 +125,7 @@ const SHARED_PASS = newTrainPass();
 
 /** The scratch pass for a new evaluation (valid until the next evaluation starts). */
 export function freshTrainPass(): TrainPass {
-  SHARED_PASS.seeded = false;
+  SHARED_PASS.passes = 0;
   return SHARED_PASS;
 }
 
@@ -149,33 +159,44 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
   let turbineWorkKJ = 0;
   let reheatHeatKJ = 0;
   const m = s.stages;
-  // Temperature ratios of the previous stage: stages behind a reheat start where the first
-  // started, so its ratios are close guesses on the first pass.
+  // Seeds of the inversions. From the third pass on, each temperature is extrapolated
+  // linearly in the combustor inlet enthalpy from the last two passes (the passes close in
+  // on the answer, so this lands within a small fraction of a kelvin: one step); on the
+  // second pass, the first pass's value; on the first pass, the temperature ratios of the
+  // stage before (stages behind a reheat start where the first started), and for the first
+  // stage the constant-cp answer.
+  const passes = pass.passes;
+  const span = pass.inletEnthalpy - pass.previousInletEnthalpy;
+  const extrapolation = passes >= 2 && span !== 0 ? (combustorInletEnthalpy - pass.inletEnthalpy) / span : 0;
   let isentropicRatio = 0;
   let exitRatio = 0;
   for (let j = 1; j <= m; j++) {
-    // Isentropic exit: S(T2s) = S(T1) + Ru n ln(p2/p1). Seeded by this stage's result of the
-    // previous pass (which differs only by the change of fuel), else by the ratios of the
-    // stage before, else (first stage, first pass) by the constant-cp answer at the inlet.
+    // Isentropic exit: S(T2s) = S(T1) + Ru n ln(p2/p1).
     const rn = RU * (s.airMoles + fuelKg * s.changeMoles);
-    const isentropicGuess = pass.seeded
-      ? pass.isentropicK[j]
-      : j > 1
-        ? t * isentropicRatio
-        : t * Math.exp((s.logStagePressureRatio * rn) / cpOf(gas, t));
+    const lastIsentropicK = pass.isentropicK[j];
+    const isentropicGuess =
+      passes > 0
+        ? lastIsentropicK + extrapolation * (lastIsentropicK - pass.previousIsentropicK[j])
+        : j > 1
+          ? t * isentropicRatio
+          : t * Math.exp((s.logStagePressureRatio * rn) / cpOf(gas, t));
     const isentropicK = temperatureFromStandardEntropyOf(gas, entropy + rn * s.logStagePressureRatio, isentropicGuess);
     const isentropicEnthalpy = enthalpyOf(gas, isentropicK);
     const exitEnthalpy = h - s.efficiency * (h - isentropicEnthalpy);
-    // T(h) seeded likewise; the first stage of the first pass takes one linear step from the isentropic exit.
+    // T(h), seeded likewise; the first stage of the first pass takes one linear step from the isentropic exit.
     const k = 2 * j - 1;
-    const exitGuess = pass.seeded
-      ? pass.temperatureK[k]
-      : j > 1
-        ? t * exitRatio
-        : isentropicK + (exitEnthalpy - isentropicEnthalpy) / cpOf(gas, isentropicK);
+    const lastExitK = pass.temperatureK[k];
+    const exitGuess =
+      passes > 0
+        ? lastExitK + extrapolation * (lastExitK - pass.previousExitK[j])
+        : j > 1
+          ? t * exitRatio
+          : isentropicK + (exitEnthalpy - isentropicEnthalpy) / cpOf(gas, isentropicK);
     const exitK = temperatureFromEnthalpyOf(gas, exitEnthalpy, exitGuess);
     isentropicRatio = isentropicK / t;
     exitRatio = exitK / t;
+    pass.previousIsentropicK[j] = lastIsentropicK;
+    pass.previousExitK[j] = lastExitK;
     checkExit(exitK, j);
     pass.isentropicK[j] = isentropicK;
     record(pass, k, exitK, exitEnthalpy, fuelKg);
@@ -205,7 +226,9 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
   pass.count = 2 * m;
   pass.turbineWorkKJ = turbineWorkKJ;
   pass.reheatHeatKJ = reheatHeatKJ;
-  pass.seeded = true;
+  pass.previousInletEnthalpy = pass.inletEnthalpy;
+  pass.inletEnthalpy = combustorInletEnthalpy;
+  pass.passes = passes + 1;
 }
 
 /**

@@ -125,22 +125,30 @@ export function cpOf(p: Polynomial, temperatureK: number): number {
 /** h(T) from a property polynomial. 200–6000 K. */
 export function enthalpyOf(p: Polynomial, temperatureK: number): number {
   const o = temperatureK < BREAK_K ? 0 : RANGE;
-  const t = temperatureK;
   // a2 is zero for the whole range of some gases (constant-cp air, argon below 1000 K):
   // skipping the logarithm there saves its cost, the dearest part of the evaluation.
   const a2 = p[o + 8];
-  const logTerm = a2 === 0 ? 0 : a2 * Math.log(t);
-  return p[o + 7] / t + logTerm + t * (p[o + 9] + t * (p[o + 10] + t * (p[o + 11] + t * (p[o + 12] + t * p[o + 13])))) + p[o + 14];
+  return enthalpyWithLog(p, temperatureK, a2 === 0 ? 0 : Math.log(temperatureK));
+}
+
+/** h(T) given ln T as well, for callers that need h and s° at one temperature (one logarithm for both). */
+export function enthalpyWithLog(p: Polynomial, temperatureK: number, lnT: number): number {
+  const o = temperatureK < BREAK_K ? 0 : RANGE;
+  const t = temperatureK;
+  return p[o + 7] / t + p[o + 8] * lnT + t * (p[o + 9] + t * (p[o + 10] + t * (p[o + 11] + t * (p[o + 12] + t * p[o + 13])))) + p[o + 14];
 }
 
 /** s°(T) from a property polynomial (at 100 kPa). 200–6000 K. */
 export function standardEntropyOf(p: Polynomial, temperatureK: number): number {
+  return standardEntropyWithLog(p, temperatureK, Math.log(temperatureK));
+}
+
+/** s°(T) given ln T as well (see enthalpyWithLog). */
+export function standardEntropyWithLog(p: Polynomial, temperatureK: number, lnT: number): number {
   const o = temperatureK < BREAK_K ? 0 : RANGE;
   const t = temperatureK;
   const u = 1 / t;
-  return (
-    (p[o + 15] * u + p[o + 16]) * u + p[o + 17] * Math.log(t) + t * (p[o + 18] + t * (p[o + 19] + t * (p[o + 20] + t * p[o + 21]))) + p[o + 22]
-  );
+  return (p[o + 15] * u + p[o + 16]) * u + p[o + 17] * lnT + t * (p[o + 18] + t * (p[o + 19] + t * (p[o + 20] + t * p[o + 21]))) + p[o + 22];
 }
 
 /**
