@@ -202,9 +202,11 @@ function invert(p: Polynomial, target: number, guessK: number, entropy: boolean)
     // more evaluation to confirm it (unless it crosses the 1000 K break, where the other
     // range's polynomial takes over).
     // Far from the root, where the correction would be large, it takes a plain Newton step.
-    const corrected = slope - (0.5 * residual * curvature) / slope;
-    const halley = corrected > 0.5 * slope && corrected < 2 * slope;
-    let next = t - residual / (halley ? corrected : slope);
+    // (Halley's step −f f′ / (f′² − f f″ / 2), written with one division.)
+    const squared = slope * slope;
+    const denominator = squared - 0.5 * residual * curvature;
+    const halley = denominator > 0.5 * squared && denominator < 2 * squared;
+    let next = halley ? t - (residual * slope) / denominator : t - residual / slope;
     if (halley && Math.abs(next - t) <= ACCEPT_STEP_RELATIVE * t && next > lo && next < hi && next < BREAK_K === t < BREAK_K) return next;
     if (Math.abs(next - t) <= INVERSION_RELATIVE_TOLERANCE * t) return next;
     if (!(next > lo && next < hi) || !(slope > 0)) next = 0.5 * (lo + hi);
