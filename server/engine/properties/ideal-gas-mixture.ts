@@ -153,14 +153,14 @@ export class IdealGasMixture implements GasModel {
   }
 
   /**
-   * T(h) by safeguarded Newton steps (see property-polynomial.ts), to 1e-12 relative; two
+   * T(h) by safeguarded Halley steps (see property-polynomial.ts), to 1e-12 relative; two
    * or three steps from a guess within a few hundred kelvin.
    */
   temperatureFromEnthalpy(enthalpyKJPerKg: number, guessK = 800): number {
     return temperatureFromEnthalpyOf(this.polynomial, enthalpyKJPerKg, guessK);
   }
 
-  /** T(s°) by the same safeguarded Newton iteration (ds°/dT = cp / T > 0). */
+  /** T(s°) by the same safeguarded iteration (ds°/dT = cp / T > 0). */
   temperatureFromStandardEntropy(standardEntropyKJPerKgK: number, guessK = 800): number {
     return temperatureFromStandardEntropyOf(this.polynomial, standardEntropyKJPerKgK, guessK);
   }

@@ -152,15 +152,16 @@ export function standardEntropyWithLog(p: Polynomial, temperatureK: number, lnT:
 }
 
 /**
- * T(h) by Newton's method (dh/dT = cp > 0), kept inside a bracket that shrinks with every
- * step, falling back to bisection if a step leaves it; to 1e-12 relative. `guessK` seeds it:
- * from a guess within a kelvin or so one evaluation is enough (see invert).
+ * T(h) by safeguarded Halley steps (Newton's method corrected for the curvature; dh/dT =
+ * cp > 0), kept inside a bracket that shrinks with every step, falling back to bisection if a
+ * step leaves it; to 1e-12 relative. `guessK` seeds it: from a guess within a few kelvin two
+ * evaluations are enough, from within a fraction of a kelvin one (see invert).
  */
 export function temperatureFromEnthalpyOf(p: Polynomial, enthalpy: number, guessK: number): number {
   return invert(p, enthalpy, guessK, false);
 }
 
-/** T(s°) by the same safeguarded Newton iteration (ds°/dT = cp / T > 0); to 1e-12 relative. */
+/** T(s°) by the same safeguarded iteration (ds°/dT = cp / T > 0); to 1e-12 relative. */
 export function temperatureFromStandardEntropyOf(p: Polynomial, standardEntropy: number, guessK: number): number {
   return invert(p, standardEntropy, guessK, true);
 }
