@@ -38,7 +38,10 @@ interface StateRecord {
 // and the board re-evaluate many cycles at one site, so the last of each is kept (they
 // are immutable, so sharing them is safe and keeps evaluation free of hidden state).
 interface InletAir {
-  readonly key: string;
+  /** The ambient it was made for. */
+  readonly temperatureK: number;
+  readonly pressureKPa: number;
+  readonly relativeHumidity: number;
   readonly gas: IdealGasMixture;
   /** The same air as a stream (1 kg per kg of inlet air), for burning fuel in. */
   readonly stream: GasStream;
@@ -50,11 +53,14 @@ let cachedFuel: Fuel | null = null;
 const CONSTANT_CP_AIR = new ConstantCpAir();
 
 function inletAir(r: ResolvedInput): InletAir {
-  const key = `${r.ambientTemperatureK}|${r.ambientPressureKPa}|${r.relativeHumidity}`;
-  if (cachedAir && cachedAir.key === key) return cachedAir;
-  const humid = humidAir(r.ambientTemperatureK, r.ambientPressureKPa, r.relativeHumidity);
+  const t = r.ambientTemperatureK;
+  const p = r.ambientPressureKPa;
+  const rh = r.relativeHumidity;
+  // Compared as numbers: a string key would cost three number-to-text conversions per evaluation.
+  if (cachedAir && cachedAir.temperatureK === t && cachedAir.pressureKPa === p && cachedAir.relativeHumidity === rh) return cachedAir;
+  const humid = humidAir(t, p, rh);
   const stream = makeStream(humid.amountsPerKg, 0);
-  cachedAir = { key, gas: stream.gas, stream, polynomial: stream.gas.polynomial };
+  cachedAir = { temperatureK: t, pressureKPa: p, relativeHumidity: rh, gas: stream.gas, stream, polynomial: stream.gas.polynomial };
   return cachedAir;
 }
 
@@ -77,13 +83,16 @@ function numbered(label: string, i: number, count: number): string {
   return count > 1 ? `${label} ${i}` : label;
 }
 
-// Labels by part name, then by stage count; filled on first use. A string key would cost
-// a string build per lookup, several times per evaluation.
-const labelCache: Record<string, (readonly string[])[]> = {};
+// Stage labels of each part by stage count, filled on first use: building the strings would
+// cost more than the rest of a small evaluation, and one list per part keeps each lookup a
+// plain array read (a lookup by part name would be a generic property lookup).
+const COMPRESSOR_LABELS: (readonly string[])[] = [];
+const INTERCOOLER_LABELS: (readonly string[])[] = [];
+const TURBINE_LABELS: (readonly string[])[] = [];
+const REHEATER_LABELS: (readonly string[])[] = [];
 
-/** Labels "turbine 1 exit", … for `count` stages (index 1…count), made once per name and count. */
-function stageLabels(name: string, count: number, suffix: string): readonly string[] {
-  const byCount = (labelCache[name] ??= []);
+/** Labels "turbine 1 exit", … for `count` stages (index 1…count), made once per part and count. */
+function stageLabels(byCount: (readonly string[])[], name: string, count: number, suffix: string): readonly string[] {
   let labels = byCount[count];
   if (!labels) {
     const made = [''];
@@ -233,8 +242,8 @@ function hotRecords(
   let turbineWorkKJ = 0;
   let previousEnthalpy = 0;
   const m = r.turbineStages;
-  const turbineLabels = stageLabels('turbine', m, ' exit');
-  const reheaterLabels = stageLabels('reheater', m, ' exit');
+  const turbineLabels = stageLabels(TURBINE_LABELS, 'turbine', m, ' exit');
+  const reheaterLabels = stageLabels(REHEATER_LABELS, 'reheater', m, ' exit');
   for (let k = 0; k < pass.count; k++) {
     const expansion = k % 2 === 1;
     const burnt = !expansion && airStream !== null && fuel !== null;
@@ -292,8 +301,8 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
   const stageRatio = Math.pow(r.pressureRatio / Math.pow(1 - r.intercoolerPressureLoss, n - 1), 1 / n);
   let compressorWorkKJ = 0;
   let current = inlet;
-  const compressorLabels = stageLabels('compressor', n, ' exit');
-  const intercoolerLabels = stageLabels('intercooler', n, ' exit');
+  const compressorLabels = stageLabels(COMPRESSOR_LABELS, 'compressor', n, ' exit');
+  const intercoolerLabels = stageLabels(INTERCOOLER_LABELS, 'intercooler', n, ' exit');
   const seed = newStageSeed();
   for (let i = 1; i <= n; i++) {
     const exit = compress(airGas, current, stageRatio, r.compressorEfficiency, seed);

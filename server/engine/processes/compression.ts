@@ -53,8 +53,9 @@ export function compress(gas: GasModel, inlet: FlowState, pressureRatio: number,
  * from s°(T2) = s°(T1) + R ln(ratio). Works for compression (ratio > 1) and expansion (< 1).
  */
 export function isentropicExitTemperature(gas: GasModel, inletK: number, pressureRatio: number): number {
-  const target = gas.standardEntropyKJPerKgK(inletK) + gas.gasConstantKJPerKgK * Math.log(pressureRatio);
-  // Seed with the constant-cp answer at the inlet cp.
-  const guess = inletK * Math.pow(pressureRatio, gas.gasConstantKJPerKgK / gas.cpKJPerKgK(inletK));
+  const rise = gas.gasConstantKJPerKgK * Math.log(pressureRatio);
+  const target = gas.standardEntropyKJPerKgK(inletK) + rise;
+  // Seed with the constant-cp answer at the inlet cp, T1 r^(R/cp), written with the logarithm already taken.
+  const guess = inletK * Math.exp(rise / gas.cpKJPerKgK(inletK));
   return gas.temperatureFromStandardEntropy(target, guess);
 }
