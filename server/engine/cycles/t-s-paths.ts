@@ -60,7 +60,7 @@ export function isobarPath(
   const last = points - 1;
   // s = s°(T) − R ln(p/p0) with p linear in the fraction: where the part has no loss the
   // pressure term is one constant, which saves a logarithm per point.
-  const lossless = a.pressureKPa === b.pressureKPa;
+  const lossless = withoutLoss(a, b);
   const p = gas.polynomial;
   const r = gas.gasConstantKJPerKgK;
   const pressureTerm = -r * Math.log(a.pressureKPa / P0_KPA);
@@ -96,16 +96,26 @@ export function changingCompositionPath(
   const entropyKJPerKgK: number[] = new Array(points);
   const poly = outletGas.polynomial;
   const r = outletGas.gasConstantKJPerKgK;
-  const shift = a.entropyKJPerKgK - (entropyOf(poly, a.temperatureK) - r * Math.log(a.pressureKPa / P0_KPA));
+  const pressureTerm = -r * Math.log(a.pressureKPa / P0_KPA);
+  const shift = a.entropyKJPerKgK - (entropyOf(poly, a.temperatureK) + pressureTerm);
+  // As on an isobar, a constant pressure term where the pressure does not change (the exhaust
+  // returning to the ambient state).
+  const lossless = withoutLoss(a, b);
   const last = points - 1;
   for (let j = 0; j <= last; j++) {
     const fraction = j / last;
     const t = a.temperatureK + (b.temperatureK - a.temperatureK) * fraction;
     const p = a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction;
     temperatureK[j] = t;
-    entropyKJPerKgK[j] = entropyOf(poly, t) - r * Math.log(p / P0_KPA) + (1 - fraction) * shift;
+    entropyKJPerKgK[j] = entropyOf(poly, t) + (lossless ? pressureTerm : -r * Math.log(p / P0_KPA)) + (1 - fraction) * shift;
   }
   entropyKJPerKgK[0] = a.entropyKJPerKgK;
   entropyKJPerKgK[last] = b.entropyKJPerKgK;
   return { kind, from, to, temperatureK, entropyKJPerKgK };
+}
+
+/** True when a part keeps its pressure (to round-off: the exhaust pressure is ambient divided
+ * and multiplied by the same loss factor). */
+function withoutLoss(a: FlowState, b: FlowState): boolean {
+  return Math.abs(b.pressureKPa - a.pressureKPa) <= 1e-12 * a.pressureKPa;
 }
