@@ -83,3 +83,19 @@ describe.each([
     expect(hotOut.pressureKPa).toBeCloseTo(expected.hotOutlet.pressureKPa, 9);
   });
 });
+
+describe('scratch reuse', () => {
+  it('gives bit-identical results whatever was evaluated before', () => {
+    // The turbine train and the product mixtures reuse scratch arrays across evaluations;
+    // nothing of one evaluation may leak into the next (not even its seeds).
+    const first = JSON.stringify(evaluateCycle(irrCombustion));
+    evaluateCycle(variant(irrCombustion, (c) => {
+      c.compressor.pressureRatio = 30;
+      c.turbine.stages = 4;
+      c.fuel.hydrogenVolumeFraction = 1;
+    }));
+    expect(() => evaluateCycle(variant(irrCombustion, (c) => (c.turbine.reheatTemperatureK = 3400)))).toThrow();
+    evaluateCycle(variant(irrCombustion, (c) => (c.fluid = 'constant-cp-air')));
+    expect(JSON.stringify(evaluateCycle(irrCombustion))).toBe(first);
+  });
+});

@@ -167,7 +167,7 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
   // stage the constant-cp answer.
   const passes = pass.passes;
   const span = pass.inletEnthalpy - pass.previousInletEnthalpy;
-  const extrapolation = passes >= 2 && span !== 0 ? (combustorInletEnthalpy - pass.inletEnthalpy) / span : 0;
+  const extrapolation = span !== 0 ? (combustorInletEnthalpy - pass.inletEnthalpy) / span : 0;
   let isentropicRatio = 0;
   let exitRatio = 0;
   for (let j = 1; j <= m; j++) {
@@ -175,9 +175,11 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
     const rn = RU * (s.airMoles + fuelKg * s.changeMoles);
     const lastIsentropicK = pass.isentropicK[j];
     const isentropicGuess =
-      passes > 0
+      passes >= 2
         ? lastIsentropicK + extrapolation * (lastIsentropicK - pass.previousIsentropicK[j])
-        : j > 1
+        : passes === 1
+          ? lastIsentropicK
+          : j > 1
           ? t * isentropicRatio
           : t * Math.exp((s.logStagePressureRatio * rn) / cpOf(gas, t));
     const isentropicK = temperatureFromStandardEntropyOf(gas, entropy + rn * s.logStagePressureRatio, isentropicGuess);
@@ -187,9 +189,11 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
     const k = 2 * j - 1;
     const lastExitK = pass.temperatureK[k];
     const exitGuess =
-      passes > 0
+      passes >= 2
         ? lastExitK + extrapolation * (lastExitK - pass.previousExitK[j])
-        : j > 1
+        : passes === 1
+          ? lastExitK
+          : j > 1
           ? t * exitRatio
           : isentropicK + (exitEnthalpy - isentropicEnthalpy) / cpOf(gas, isentropicK);
     const exitK = temperatureFromEnthalpyOf(gas, exitEnthalpy, exitGuess);
