@@ -15,8 +15,9 @@ const H2O = 4;
 const CH4 = 5;
 const H2 = 6;
 const LHV_REFERENCE_K = 298.15;
-// Local copy: an imported binding is a getter once transpiled, and this one is read in a loop.
+// Local copies: an imported binding is a getter once transpiled, and these are read in loops.
 const LENGTH = EXTENSIVE_LENGTH;
+const SPECIES_IN_GAS = SPECIES_COUNT;
 
 /**
  * A methane–hydrogen fuel gas, burnt completely:
@@ -182,7 +183,7 @@ const SCRATCH_COEFFICIENTS: number[] = new Array<number>(EXTENSIVE_LENGTH).fill(
 export function burnFuelInto(mixture: IdealGasMixture, stream: GasStream, fuelKg: number, fuel: Fuel): number {
   const change = fuel.changePerKg;
   const n = stream.amounts;
-  for (let i = 0; i < SPECIES_COUNT; i++) SCRATCH_AMOUNTS[i] = n[i] + fuelKg * change[i];
+  for (let i = 0; i < SPECIES_IN_GAS; i++) SCRATCH_AMOUNTS[i] = n[i] + fuelKg * change[i];
   if (SCRATCH_AMOUNTS[O2] < 0) SCRATCH_AMOUNTS[O2] = 0; // rounding can leave −1e-20 of O2 at stoichiometric burning
   const c = stream.coefficients;
   const d = fuel.changeCoefficients;
