@@ -105,7 +105,7 @@ function stageLabels(byCount: (readonly string[])[], name: string, count: number
 /**
  * Typical slope of the regenerator duty with respect to the combustor inlet enthalpy in
  * combustion mode (a hotter inlet burns less fuel, so the exhaust runs slightly cooler):
- * about −0.01 over the cases the board meets. It only shapes the first step of the
+ * about −0.01 over the cases the board meets (−0.012 in the 2+2 case). It only shapes the first step of the
  * iteration below; any value below 1 converges.
  */
 const TYPICAL_COUPLING_SLOPE = -0.01;
@@ -141,6 +141,19 @@ function closeRegeneratorLoop(s: TrainSetup, pass: TrainPass): number {
     x = Number.isFinite(next) ? next : x + g;
   }
   return x;
+}
+
+/**
+ * Runs the turbine train into `pass` and returns the combustor inlet enthalpy (kJ/kg) it ran
+ * with: the compressor exit's, plus the regenerator duty when there is one. One pass in the
+ * air modes or without a regenerator; in combustion mode with a regenerator the exhaust
+ * composition depends on the fuel burnt, which depends on the regenerator's cold outlet, a
+ * weakly coupled loop closed by closeRegeneratorLoop.
+ */
+function solveTurbineTrain(s: TrainSetup, pass: TrainPass, regenerator: boolean): number {
+  if (regenerator && s.change) return closeRegeneratorLoop(s, pass);
+  runTrain(s, s.coldInletEnthalpy, pass);
+  return regenerator ? s.coldInletEnthalpy + regeneratorDuty(s, pass) : s.coldInletEnthalpy;
 }
 
 /** The fixed numbers of the turbine train for one evaluation (see TrainSetup). */
@@ -343,19 +356,9 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
     );
   }
 
-  // The turbine train, as numbers: once in the air modes or without a regenerator; in
-  // combustion mode with a regenerator the exhaust composition depends on the fuel burnt,
-  // which depends on the regenerator's cold outlet, a weakly coupled loop closed by
-  // closeRegeneratorLoop. x is the combustor inlet enthalpy.
   const setup = trainSetup(r, air, combustion ? fuel : null, compressorExit, expansionRatio);
   const pass = freshTrainPass();
-  let combustorInletEnthalpy = compressorExit.enthalpyKJPerKg;
-  if (regenerator && setup.change) {
-    combustorInletEnthalpy = closeRegeneratorLoop(setup, pass);
-  } else {
-    runTrain(setup, combustorInletEnthalpy, pass);
-    if (regenerator) combustorInletEnthalpy += regeneratorDuty(setup, pass);
-  }
+  const combustorInletEnthalpy = solveTurbineTrain(setup, pass, regenerator !== null);
   const last = pass.count - 1;
   const exhaustK = pass.temperatureK[last];
   // Cold outlet and duty from x itself: then the duty on the air side is exactly what the

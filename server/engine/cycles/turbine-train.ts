@@ -90,7 +90,6 @@ export interface TrainPass {
   inletEnthalpy: number;
   previousInletEnthalpy: number;
   count: number;
-  turbineWorkKJ: number;
   /** Air modes: enthalpy added in the reheaters. */
   reheatHeatKJ: number;
   /** Combustion: the polynomial of the gas after the last burner (scratch, overwritten by each pass). */
@@ -111,7 +110,6 @@ function newTrainPass(): TrainPass {
     inletEnthalpy: 0,
     previousInletEnthalpy: 0,
     count: 0,
-    turbineWorkKJ: 0,
     reheatHeatKJ: 0,
     gas: newPolynomial(),
     passes: 0,
@@ -156,7 +154,6 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
   let h = s.airEnthalpyAtInlet + fuelKg * s.changeEnthalpyAtInlet;
   let entropy = s.airEntropyAtInlet + fuelKg * s.changeEntropyAtInlet;
   record(pass, 0, t, h, fuelKg);
-  let turbineWorkKJ = 0;
   let reheatHeatKJ = 0;
   const m = s.stages;
   // Seeds of the inversions. From the third pass on, each temperature is extrapolated
@@ -204,7 +201,6 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
     checkExit(exitK, j);
     pass.isentropicK[j] = isentropicK;
     record(pass, k, exitK, exitEnthalpy, fuelKg);
-    turbineWorkKJ += h - exitEnthalpy;
     h = exitEnthalpy;
     t = exitK;
     if (j === m) break;
@@ -228,7 +224,6 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
     record(pass, k + 1, t, h, fuelKg);
   }
   pass.count = 2 * m;
-  pass.turbineWorkKJ = turbineWorkKJ;
   pass.reheatHeatKJ = reheatHeatKJ;
   pass.previousInletEnthalpy = pass.inletEnthalpy;
   pass.inletEnthalpy = combustorInletEnthalpy;
