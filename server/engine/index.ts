@@ -3,7 +3,7 @@
  * Pure and synchronous; SI units (K, kPa, kJ/kg, kJ/(kg·K), kg/s, kW). See README.md.
  */
 import { evaluateStagedCycle } from './cycles/staged-cycle';
-import { type SweepInput, type SweepResult, sweepStagedCycle } from './cycles/sweep';
+import { sweepStagedCycle, type SweepInput, type SweepResult } from './cycles/sweep';
 import type { CycleInput, CycleResult, EvaluateOptions } from './cycles/types';
 
 export { EngineInputError } from './errors';

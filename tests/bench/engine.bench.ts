@@ -3,7 +3,7 @@
  * cases together in one process (a case warmed alone can hide deoptimisation that mixed
  * work triggers). Run with `npm run bench`.
  */
-import { type CycleInput, evaluateCycle, sweepCycle } from '@/server/engine';
+import { evaluateCycle, sweepCycle, type CycleInput } from '@/server/engine';
 
 const ambient = { temperatureK: 288.15, pressureKPa: 101.325, relativeHumidity: 0.6 };
 
@@ -67,7 +67,8 @@ const cases: Case[] = [
   {
     name: '200-point pressure-ratio sweep, simple combustion',
     targetMicroseconds: 1500,
-    run: () => sweepCycle({ base: simpleCombustion, parameter: 'compressor.pressureRatio', from: 2, to: 60, points: 200 }),
+    run: () =>
+      sweepCycle({ base: simpleCombustion, parameter: 'compressor.pressureRatio', from: 2, to: 60, points: 200 }),
   },
 ];
 

@@ -1,8 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { type CycleInput, type CycleResult, evaluateCycle } from '@/server/engine';
+
+import { evaluateCycle, type CycleInput, type CycleResult } from '@/server/engine';
 import { makeFuel } from '@/server/engine/processes/combustion';
 import { speciesMolarEnthalpy } from '@/server/engine/properties/nasa-species';
 import { expectClose } from '@/tests/helpers/expect-close';
+
 import { irrAir, irrCombustion, simpleAir, simpleCombustion, variant } from './cases';
 
 const configurations: Array<[string, CycleInput]> = [
@@ -10,18 +12,24 @@ const configurations: Array<[string, CycleInput]> = [
   ['simple, combustion', simpleCombustion],
   ['2+2 intercooled-reheat-regenerative, air', irrAir],
   ['2+2 intercooled-reheat-regenerative, combustion', irrCombustion],
-  ['4+3 combustion, hydrogen', variant(irrCombustion, (c) => {
-    c.compressor.stages = 4;
-    c.turbine.stages = 3;
-    c.compressor.pressureRatio = 20;
-    c.fuel.hydrogenVolumeFraction = 1;
-  })],
-  ['regenerative, constant cp', variant(irrAir, (c) => {
-    c.fluid = 'constant-cp-air';
-    c.compressor.stages = 1;
-    c.turbine.stages = 1;
-    c.compressor.pressureRatio = 5;
-  })],
+  [
+    '4+3 combustion, hydrogen',
+    variant(irrCombustion, (c) => {
+      c.compressor.stages = 4;
+      c.turbine.stages = 3;
+      c.compressor.pressureRatio = 20;
+      c.fuel.hydrogenVolumeFraction = 1;
+    }),
+  ],
+  [
+    'regenerative, constant cp',
+    variant(irrAir, (c) => {
+      c.fluid = 'constant-cp-air';
+      c.compressor.stages = 1;
+      c.turbine.stages = 1;
+      c.compressor.pressureRatio = 5;
+    }),
+  ],
 ];
 
 function byLabel(result: CycleResult, label: string) {
@@ -33,7 +41,10 @@ function byLabel(result: CycleResult, label: string) {
 /** Enthalpy of the unburnt fuel per kg at a temperature, straight from the species data. */
 function fuelEnthalpy(hydrogenVolumeFraction: number, temperatureK: number): number {
   const x = hydrogenVolumeFraction;
-  return ((1 - x) * speciesMolarEnthalpy('CH4', temperatureK) + x * speciesMolarEnthalpy('H2', temperatureK)) / makeFuel(x).molarMassKgPerKmol;
+  return (
+    ((1 - x) * speciesMolarEnthalpy('CH4', temperatureK) + x * speciesMolarEnthalpy('H2', temperatureK)) /
+    makeFuel(x).molarMassKgPerKmol
+  );
 }
 
 describe.each(configurations)('%s', (_name, input) => {
@@ -59,7 +70,8 @@ describe.each(configurations)('%s', (_name, input) => {
     const exhaust = states[states.length - 1];
     let intercoolerHeat = 0;
     for (let i = 1; i < states.length; i++) {
-      if (states[i].label.startsWith('intercooler')) intercoolerHeat += states[i - 1].enthalpyKJPerKg - states[i].enthalpyKJPerKg;
+      if (states[i].label.startsWith('intercooler'))
+        intercoolerHeat += states[i - 1].enthalpyKJPerKg - states[i].enthalpyKJPerKg;
     }
     let netFromBoundary: number;
     if (input.fluid === 'combustion') {
@@ -67,13 +79,19 @@ describe.each(configurations)('%s', (_name, input) => {
       const f = result.fuelAirRatio!;
       const fuelIn = f * fuelEnthalpy(input.fuel!.hydrogenVolumeFraction, input.fuel!.temperatureK);
       expectClose(exhaust.massFlowRatio, 1 + f, { rel: 1e-12 }, 'exhaust mass per kg of air');
-      netFromBoundary = inlet.enthalpyKJPerKg + fuelIn - exhaust.massFlowRatio * exhaust.enthalpyKJPerKg - intercoolerHeat;
+      netFromBoundary =
+        inlet.enthalpyKJPerKg + fuelIn - exhaust.massFlowRatio * exhaust.enthalpyKJPerKg - intercoolerHeat;
     } else {
       const heatOut = exhaust.enthalpyKJPerKg - inlet.enthalpyKJPerKg + intercoolerHeat;
       netFromBoundary = result.heatInputKJPerKg - heatOut;
     }
     expectClose(result.netWorkKJPerKg, netFromBoundary, { rel: 1e-9 }, 'net work from the plant boundary');
-    expectClose(result.thermalEfficiency, result.netWorkKJPerKg / result.heatInputKJPerKg, { rel: 1e-12 }, 'efficiency');
+    expectClose(
+      result.thermalEfficiency,
+      result.netWorkKJPerKg / result.heatInputKJPerKg,
+      { rel: 1e-12 },
+      'efficiency',
+    );
   });
 
   it('raises entropy across every real compression and expansion', () => {
@@ -101,7 +119,12 @@ describe.each(configurations)('%s', (_name, input) => {
       { rel: 1e-12 },
       'regenerator energy balance',
     );
-    expectClose(result.regeneratorDutyKJPerKg, coldOut.enthalpyKJPerKg - coldIn.enthalpyKJPerKg, { rel: 1e-12 }, 'duty');
+    expectClose(
+      result.regeneratorDutyKJPerKg,
+      coldOut.enthalpyKJPerKg - coldIn.enthalpyKJPerKg,
+      { rel: 1e-12 },
+      'duty',
+    );
   });
 
   it('leaves at ambient pressure and numbers the states in flow order', () => {
@@ -113,7 +136,12 @@ describe.each(configurations)('%s', (_name, input) => {
 
   it('delivers the overall pressure ratio with intercooler losses included', () => {
     const lastCompressor = [...states].reverse().find((s) => s.label.startsWith('compressor'))!;
-    expectClose(lastCompressor.pressureKPa / states[0].pressureKPa, input.compressor.pressureRatio, { rel: 1e-12 }, 'pressure ratio');
+    expectClose(
+      lastCompressor.pressureKPa / states[0].pressureKPa,
+      input.compressor.pressureRatio,
+      { rel: 1e-12 },
+      'pressure ratio',
+    );
   });
 
   it('draws a closed T-s loop whose ends are the state points', () => {
@@ -140,7 +168,12 @@ describe('combustion details', () => {
 
   it('heat input is fuel × LHV at 298.15 K', () => {
     const result = evaluateCycle(simpleCombustion, { paths: false });
-    expectClose(result.heatInputKJPerKg, result.fuelAirRatio! * result.fuelLowerHeatingValueKJPerKg!, { rel: 1e-12 }, 'heat input');
+    expectClose(
+      result.heatInputKJPerKg,
+      result.fuelAirRatio! * result.fuelLowerHeatingValueKJPerKg!,
+      { rel: 1e-12 },
+      'heat input',
+    );
   });
 
   it('methane needs roughly 2 % fuel by mass to reach 1500 K from 700 K', () => {
@@ -151,11 +184,19 @@ describe('combustion details', () => {
   });
 
   it('hydrogen makes no CO2 and methane about 0.2 kg/kWh of heat', () => {
-    const h2 = evaluateCycle(variant(simpleCombustion, (c) => (c.fuel.hydrogenVolumeFraction = 1)), { paths: false });
+    const h2 = evaluateCycle(
+      variant(simpleCombustion, (c) => (c.fuel.hydrogenVolumeFraction = 1)),
+      { paths: false },
+    );
     expect(h2.co2KgPerMWh).toBe(0);
     const ch4 = evaluateCycle(simpleCombustion, { paths: false });
     // CH4: 44.01/16.04 kg CO2 per kg over 50.0 MJ/kg ≈ 0.198 kg/kWh of fuel heat (stoichiometry, common practice).
-    expectClose((ch4.co2KgPerMWh! / ch4.heatRateKJPerKWh!) * 3600 / 1000, 0.1975, { rel: 0.01 }, 'CO2 per kWh of heat');
+    expectClose(
+      ((ch4.co2KgPerMWh! / ch4.heatRateKJPerKWh!) * 3600) / 1000,
+      0.1975,
+      { rel: 0.01 },
+      'CO2 per kWh of heat',
+    );
   });
 
   it('flows follow the required power', () => {
@@ -166,7 +207,12 @@ describe('combustion details', () => {
       { rel: 1e-12 },
       'electric power',
     );
-    expectClose(result.heatRateKJPerKWh!, 3600 / (result.thermalEfficiency * irrCombustion.generatorEfficiency), { rel: 1e-12 }, 'heat rate');
+    expectClose(
+      result.heatRateKJPerKWh!,
+      3600 / (result.thermalEfficiency * irrCombustion.generatorEfficiency),
+      { rel: 1e-12 },
+      'heat rate',
+    );
   });
 });
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { type CycleInput, evaluateCycle } from '@/server/engine';
+
+import { evaluateCycle, type CycleInput } from '@/server/engine';
 import { expectClose } from '@/tests/helpers/expect-close';
 
 const K = 1.4;

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
+
 import { EngineInputError, evaluateCycle } from '@/server/engine';
+
 import { irrAir, irrCombustion, simpleAir, simpleCombustion, variant } from './cases';
 
 function fieldOf(run: () => unknown): string {
@@ -16,50 +18,118 @@ function fieldOf(run: () => unknown): string {
 describe('impossible input names its field', () => {
   const cases: Array<[string, ReturnType<typeof variant>, string]> = [
     ['pressure ratio of 1', variant(simpleAir, (c) => (c.compressor.pressureRatio = 1)), 'compressor.pressureRatio'],
-    ['pressure ratio below 1', variant(simpleAir, (c) => (c.compressor.pressureRatio = 0.5)), 'compressor.pressureRatio'],
+    [
+      'pressure ratio below 1',
+      variant(simpleAir, (c) => (c.compressor.pressureRatio = 0.5)),
+      'compressor.pressureRatio',
+    ],
     ['effectiveness above 1', variant(irrAir, (c) => (c.regenerator.effectiveness = 1.2)), 'regenerator.effectiveness'],
-    ['effectiveness below 0', variant(irrAir, (c) => (c.regenerator.effectiveness = -0.1)), 'regenerator.effectiveness'],
-    ['compressor efficiency 0', variant(simpleAir, (c) => (c.compressor.isentropicEfficiency = 0)), 'compressor.isentropicEfficiency'],
-    ['turbine efficiency above 1', variant(simpleAir, (c) => (c.turbine.isentropicEfficiency = 1.01)), 'turbine.isentropicEfficiency'],
+    [
+      'effectiveness below 0',
+      variant(irrAir, (c) => (c.regenerator.effectiveness = -0.1)),
+      'regenerator.effectiveness',
+    ],
+    [
+      'compressor efficiency 0',
+      variant(simpleAir, (c) => (c.compressor.isentropicEfficiency = 0)),
+      'compressor.isentropicEfficiency',
+    ],
+    [
+      'turbine efficiency above 1',
+      variant(simpleAir, (c) => (c.turbine.isentropicEfficiency = 1.01)),
+      'turbine.isentropicEfficiency',
+    ],
     ['generator efficiency 0', variant(simpleAir, (c) => (c.generatorEfficiency = 0)), 'generatorEfficiency'],
-    ['burner exit below its inlet', variant(simpleAir, (c) => (c.turbine.inletTemperatureK = 500)), 'turbine.inletTemperatureK'],
-    ['burner exit below its inlet (combustion)', variant(simpleCombustion, (c) => (c.turbine.inletTemperatureK = 500)), 'turbine.inletTemperatureK'],
-    ['reheat below the stage exit', variant(irrAir, (c) => (c.turbine.reheatTemperatureK = 600)), 'turbine.reheatTemperatureK'],
-    ['turbine inlet above the data range', variant(simpleAir, (c) => (c.turbine.inletTemperatureK = 6500)), 'turbine.inletTemperatureK'],
+    [
+      'burner exit below its inlet',
+      variant(simpleAir, (c) => (c.turbine.inletTemperatureK = 500)),
+      'turbine.inletTemperatureK',
+    ],
+    [
+      'burner exit below its inlet (combustion)',
+      variant(simpleCombustion, (c) => (c.turbine.inletTemperatureK = 500)),
+      'turbine.inletTemperatureK',
+    ],
+    [
+      'reheat below the stage exit',
+      variant(irrAir, (c) => (c.turbine.reheatTemperatureK = 600)),
+      'turbine.reheatTemperatureK',
+    ],
+    [
+      'turbine inlet above the data range',
+      variant(simpleAir, (c) => (c.turbine.inletTemperatureK = 6500)),
+      'turbine.inletTemperatureK',
+    ],
     ['ambient below the data range', variant(simpleAir, (c) => (c.ambient.temperatureK = 150)), 'ambient.temperatureK'],
-    ['more fuel than can burn', variant(simpleCombustion, (c) => (c.turbine.inletTemperatureK = 3500)), 'turbine.inletTemperatureK'],
-    ['more fuel than can burn in a reheater', variant(irrCombustion, (c) => {
-      c.turbine.inletTemperatureK = 2000;
-      c.turbine.reheatTemperatureK = 3400;
-    }), 'turbine.reheatTemperatureK'],
-    ['losses that leave no expansion', variant(irrAir, (c) => {
-      c.compressor.pressureRatio = 1.1;
-      c.combustorPressureLoss = 0.08;
-    }), 'compressor.pressureRatio'],
+    [
+      'more fuel than can burn',
+      variant(simpleCombustion, (c) => (c.turbine.inletTemperatureK = 3500)),
+      'turbine.inletTemperatureK',
+    ],
+    [
+      'more fuel than can burn in a reheater',
+      variant(irrCombustion, (c) => {
+        c.turbine.inletTemperatureK = 2000;
+        c.turbine.reheatTemperatureK = 3400;
+      }),
+      'turbine.reheatTemperatureK',
+    ],
+    [
+      'losses that leave no expansion',
+      variant(irrAir, (c) => {
+        c.compressor.pressureRatio = 1.1;
+        c.combustorPressureLoss = 0.08;
+      }),
+      'compressor.pressureRatio',
+    ],
     ['pressure loss of 1', variant(simpleAir, (c) => (c.combustorPressureLoss = 1)), 'combustorPressureLoss'],
-    ['negative pressure loss', variant(irrAir, (c) => (c.regenerator.gasSidePressureLoss = -0.01)), 'regenerator.gasSidePressureLoss'],
+    [
+      'negative pressure loss',
+      variant(irrAir, (c) => (c.regenerator.gasSidePressureLoss = -0.01)),
+      'regenerator.gasSidePressureLoss',
+    ],
     ['NaN', variant(simpleAir, (c) => (c.turbine.inletTemperatureK = Number.NaN)), 'turbine.inletTemperatureK'],
-    ['Infinity', variant(simpleAir, (c) => (c.compressor.pressureRatio = Number.POSITIVE_INFINITY)), 'compressor.pressureRatio'],
+    [
+      'Infinity',
+      variant(simpleAir, (c) => (c.compressor.pressureRatio = Number.POSITIVE_INFINITY)),
+      'compressor.pressureRatio',
+    ],
     ['a string', variant(simpleAir, (c) => (c.compressor.pressureRatio = '15')), 'compressor.pressureRatio'],
     ['a missing value', variant(simpleAir, (c) => delete c.netPowerKW), 'netPowerKW'],
     ['zero stages', variant(simpleAir, (c) => (c.turbine.stages = 0)), 'turbine.stages'],
     ['101 stages', variant(simpleAir, (c) => (c.compressor.stages = 101)), 'compressor.stages'],
     ['fractional stages', variant(simpleAir, (c) => (c.compressor.stages = 1.5)), 'compressor.stages'],
     ['humidity above 1', variant(simpleAir, (c) => (c.ambient.relativeHumidity = 1.5)), 'ambient.relativeHumidity'],
-    ['air that cannot hold the humidity', variant(simpleAir, (c) => {
-      c.ambient.temperatureK = 373;
-      c.ambient.relativeHumidity = 1;
-    }), 'ambient.relativeHumidity'],
+    [
+      'air that cannot hold the humidity',
+      variant(simpleAir, (c) => {
+        c.ambient.temperatureK = 373;
+        c.ambient.relativeHumidity = 1;
+      }),
+      'ambient.relativeHumidity',
+    ],
     ['both pressure and elevation', variant(simpleAir, (c) => (c.ambient.elevationM = 100)), 'ambient.pressureKPa'],
-    ['elevation outside the atmosphere model', variant(simpleAir, (c) => {
-      delete c.ambient.pressureKPa;
-      c.ambient.elevationM = 30000;
-    }), 'ambient.elevationM'],
-    ['hydrogen fraction above 1', variant(simpleCombustion, (c) => (c.fuel.hydrogenVolumeFraction = 1.1)), 'fuel.hydrogenVolumeFraction'],
+    [
+      'elevation outside the atmosphere model',
+      variant(simpleAir, (c) => {
+        delete c.ambient.pressureKPa;
+        c.ambient.elevationM = 30000;
+      }),
+      'ambient.elevationM',
+    ],
+    [
+      'hydrogen fraction above 1',
+      variant(simpleCombustion, (c) => (c.fuel.hydrogenVolumeFraction = 1.1)),
+      'fuel.hydrogenVolumeFraction',
+    ],
     ['combustion without a fuel', variant(simpleCombustion, (c) => delete c.fuel), 'fuel'],
     ['unknown working fluid', variant(simpleAir, (c) => (c.fluid = 'steam')), 'fluid'],
     ['zero power', variant(simpleAir, (c) => (c.netPowerKW = 0)), 'netPowerKW'],
-    ['compression beyond the data range', variant(simpleAir, (c) => (c.compressor.pressureRatio = 1e9)), 'compressor.pressureRatio'],
+    [
+      'compression beyond the data range',
+      variant(simpleAir, (c) => (c.compressor.pressureRatio = 1e9)),
+      'compressor.pressureRatio',
+    ],
   ];
 
   it.each(cases)('%s', (_name, input, field) => {

@@ -1,17 +1,18 @@
 import { describe, expect, it } from 'vitest';
+
 import { makeFuel } from '@/server/engine/processes/combustion';
 import { dryAirAmounts } from '@/server/engine/properties/dry-air';
 import { humidAir } from '@/server/engine/properties/humid-air';
 import { IdealGasMixture } from '@/server/engine/properties/ideal-gas-mixture';
 import { isaPressureKPa } from '@/server/engine/properties/isa-atmosphere';
 import {
-  SPECIES,
-  UNIVERSAL_GAS_CONSTANT,
   enthalpyOfFormation,
   fromSevenCoefficients,
+  SPECIES,
   speciesMolarCp,
   speciesMolarEnthalpy,
   speciesMolarEntropy,
+  UNIVERSAL_GAS_CONSTANT,
 } from '@/server/engine/properties/nasa-species';
 import { expectClose } from '@/tests/helpers/expect-close';
 
@@ -46,7 +47,12 @@ describe('dry air against the ideal-gas air table', () => {
 
   it('changes from 300 K agree within 0.15 % everywhere', () => {
     for (const { temperatureK, h, s } of table) {
-      expectClose(dryAir.enthalpyKJPerKg(temperatureK) - dryAir.enthalpyKJPerKg(300), h - base.h, { rel: 1.5e-3 }, `Δh ${temperatureK}`);
+      expectClose(
+        dryAir.enthalpyKJPerKg(temperatureK) - dryAir.enthalpyKJPerKg(300),
+        h - base.h,
+        { rel: 1.5e-3 },
+        `Δh ${temperatureK}`,
+      );
       expectClose(
         dryAir.standardEntropyKJPerKgK(temperatureK) - dryAir.standardEntropyKJPerKgK(300),
         s - base.s,
@@ -86,17 +92,37 @@ describe('the 9-coefficient species sets', () => {
   // digit in any coefficient of either range shows up here.
   it.each(species)('%s: the two ranges meet at 1000 K', (name) => {
     const { low, high } = SPECIES[name];
-    const cp = (a: readonly number[], t: number) => a[0] / t ** 2 + a[1] / t + a[2] + a[3] * t + a[4] * t ** 2 + a[5] * t ** 3 + a[6] * t ** 4;
+    const cp = (a: readonly number[], t: number) =>
+      a[0] / t ** 2 + a[1] / t + a[2] + a[3] * t + a[4] * t ** 2 + a[5] * t ** 3 + a[6] * t ** 4;
     const h = (a: readonly number[], t: number) =>
-      -a[0] / t + a[1] * Math.log(t) + a[2] * t + (a[3] * t ** 2) / 2 + (a[4] * t ** 3) / 3 + (a[5] * t ** 4) / 4 + (a[6] * t ** 5) / 5 + a[7];
+      -a[0] / t +
+      a[1] * Math.log(t) +
+      a[2] * t +
+      (a[3] * t ** 2) / 2 +
+      (a[4] * t ** 3) / 3 +
+      (a[5] * t ** 4) / 4 +
+      (a[6] * t ** 5) / 5 +
+      a[7];
     const s = (a: readonly number[], t: number) =>
-      -a[0] / (2 * t ** 2) - a[1] / t + a[2] * Math.log(t) + a[3] * t + (a[4] * t ** 2) / 2 + (a[5] * t ** 3) / 3 + (a[6] * t ** 4) / 4 + a[8];
+      -a[0] / (2 * t ** 2) -
+      a[1] / t +
+      a[2] * Math.log(t) +
+      a[3] * t +
+      (a[4] * t ** 2) / 2 +
+      (a[5] * t ** 3) / 3 +
+      (a[6] * t ** 4) / 4 +
+      a[8];
     expectClose(cp(high, 1000), cp(low, 1000), { rel: 1e-7 }, `cp/R of ${name} across 1000 K`);
     expectClose(h(high, 1000), h(low, 1000), { abs: 1e-4 }, `h/R of ${name} across 1000 K (K)`);
     expectClose(s(high, 1000), s(low, 1000), { abs: 1e-7 }, `s°/R of ${name} across 1000 K`);
     // The library's own evaluation agrees with the form written out above.
     expectClose(speciesMolarCp(name, 1500) / UNIVERSAL_GAS_CONSTANT, cp(high, 1500), { rel: 1e-13 }, 'cp form');
-    expectClose(speciesMolarEnthalpy(name, 500) / UNIVERSAL_GAS_CONSTANT, h(low, 500), { rel: 1e-13, abs: 1e-9 }, 'h form');
+    expectClose(
+      speciesMolarEnthalpy(name, 500) / UNIVERSAL_GAS_CONSTANT,
+      h(low, 500),
+      { rel: 1e-13, abs: 1e-9 },
+      'h form',
+    );
     expectClose(speciesMolarEntropy(name, 2500) / UNIVERSAL_GAS_CONSTANT, s(high, 2500), { rel: 1e-13 }, 's° form');
   });
 

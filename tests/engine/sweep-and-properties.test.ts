@@ -1,10 +1,18 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { type CycleInput, EngineInputError, evaluateCycle, sweepCycle } from '@/server/engine';
+
+import { EngineInputError, evaluateCycle, sweepCycle, type CycleInput } from '@/server/engine';
+
 import { irrAir, simpleAir, simpleCombustion, variant } from './cases';
 
 describe('sweeps', () => {
-  const sweep = sweepCycle({ base: simpleCombustion, parameter: 'compressor.pressureRatio', from: 2, to: 60, points: 30 });
+  const sweep = sweepCycle({
+    base: simpleCombustion,
+    parameter: 'compressor.pressureRatio',
+    from: 2,
+    to: 60,
+    points: 30,
+  });
 
   it('returns one point per sample, in order', () => {
     expect(sweep.points.length).toBe(30);
@@ -19,11 +27,15 @@ describe('sweeps', () => {
     ] as const) {
       expect(optimum.atRangeEnd).toBe(false);
       const best = score(optimum.figures as never);
-      for (const p of sweep.points) if (p.figures) expect(best).toBeGreaterThanOrEqual(score(p.figures as never) - 1e-12);
+      for (const p of sweep.points)
+        if (p.figures) expect(best).toBeGreaterThanOrEqual(score(p.figures as never) - 1e-12);
       // A maximum found, not sampled: both neighbours a little away are lower.
       const h = optimum.value * 1e-3;
       for (const v of [optimum.value - h, optimum.value + h]) {
-        const r = evaluateCycle(variant(simpleCombustion, (c) => (c.compressor.pressureRatio = v)), { paths: false });
+        const r = evaluateCycle(
+          variant(simpleCombustion, (c) => (c.compressor.pressureRatio = v)),
+          { paths: false },
+        );
         expect(score(r)).toBeLessThan(best);
       }
     }
@@ -54,13 +66,15 @@ describe('sweeps', () => {
   });
 
   it('refuses a bad range or parameter', () => {
-    expect(() => sweepCycle({ base: simpleAir, parameter: 'compressor.pressureRatio', from: 10, to: 5, points: 10 })).toThrow(
+    expect(() =>
+      sweepCycle({ base: simpleAir, parameter: 'compressor.pressureRatio', from: 10, to: 5, points: 10 }),
+    ).toThrow(EngineInputError);
+    expect(() =>
+      sweepCycle({ base: simpleAir, parameter: 'regenerator.effectiveness', from: 0.5, to: 0.9, points: 5 }),
+    ).toThrow(EngineInputError);
+    expect(() => sweepCycle({ base: simpleAir, parameter: 'nope' as never, from: 1, to: 2, points: 5 })).toThrow(
       EngineInputError,
     );
-    expect(() => sweepCycle({ base: simpleAir, parameter: 'regenerator.effectiveness', from: 0.5, to: 0.9, points: 5 })).toThrow(
-      EngineInputError,
-    );
-    expect(() => sweepCycle({ base: simpleAir, parameter: 'nope' as never, from: 1, to: 2, points: 5 })).toThrow(EngineInputError);
   });
 });
 
@@ -80,19 +94,18 @@ const validCycle = fc
     loss: fc.double({ min: 0, max: 0.05, noNaN: true }),
     tit: fc.double({ min: 1100, max: 1800, noNaN: true }),
   })
-  .map(
-    (v): CycleInput => ({
-      ambient: { temperatureK: v.ambientK, pressureKPa: 101.325, relativeHumidity: v.rh },
-      fluid: v.fluid as CycleInput['fluid'],
-      fuel: { hydrogenVolumeFraction: v.h2, temperatureK: 298.15 },
-      compressor: { stages: v.nc, pressureRatio: v.r, isentropicEfficiency: v.etaC, intercoolerPressureLoss: v.loss / 2 },
-      regenerator: v.regen === null ? null : { effectiveness: v.regen, airSidePressureLoss: v.loss, gasSidePressureLoss: v.loss },
-      combustorPressureLoss: v.loss,
-      turbine: { stages: v.nt, inletTemperatureK: v.tit, isentropicEfficiency: v.etaT, reheaterPressureLoss: v.loss / 2 },
-      generatorEfficiency: 0.985,
-      netPowerKW: 10_000,
-    }),
-  );
+  .map((v): CycleInput => ({
+    ambient: { temperatureK: v.ambientK, pressureKPa: 101.325, relativeHumidity: v.rh },
+    fluid: v.fluid as CycleInput['fluid'],
+    fuel: { hydrogenVolumeFraction: v.h2, temperatureK: 298.15 },
+    compressor: { stages: v.nc, pressureRatio: v.r, isentropicEfficiency: v.etaC, intercoolerPressureLoss: v.loss / 2 },
+    regenerator:
+      v.regen === null ? null : { effectiveness: v.regen, airSidePressureLoss: v.loss, gasSidePressureLoss: v.loss },
+    combustorPressureLoss: v.loss,
+    turbine: { stages: v.nt, inletTemperatureK: v.tit, isentropicEfficiency: v.etaT, reheaterPressureLoss: v.loss / 2 },
+    generatorEfficiency: 0.985,
+    netPowerKW: 10_000,
+  }));
 
 function finiteEverywhere(value: unknown): boolean {
   if (typeof value === 'number') return Number.isFinite(value);
@@ -126,8 +139,14 @@ describe('properties over the valid domain (fast-check)', () => {
   it('efficiency rises with regenerator effectiveness while the regenerator heats the air', () => {
     fc.assert(
       fc.property(validCycle, fc.double({ min: 0.3, max: 0.9, noNaN: true }), (input, e) => {
-        const low = positive({ ...input, regenerator: { effectiveness: e, airSidePressureLoss: 0.02, gasSidePressureLoss: 0.02 } });
-        const high = positive({ ...input, regenerator: { effectiveness: e + 0.05, airSidePressureLoss: 0.02, gasSidePressureLoss: 0.02 } });
+        const low = positive({
+          ...input,
+          regenerator: { effectiveness: e, airSidePressureLoss: 0.02, gasSidePressureLoss: 0.02 },
+        });
+        const high = positive({
+          ...input,
+          regenerator: { effectiveness: e + 0.05, airSidePressureLoss: 0.02, gasSidePressureLoss: 0.02 },
+        });
         fc.pre(low !== null && high !== null && low.netWorkKJPerKg > 0 && low.regeneratorDutyKJPerKg > 0);
         return high!.thermalEfficiency > low!.thermalEfficiency;
       }),
@@ -140,11 +159,19 @@ describe('properties over the valid domain (fast-check)', () => {
       fc.property(validCycle, (input) => {
         const base = positive(input);
         fc.pre(base !== null && base.netWorkKJPerKg > 0);
-        const betterC = positive({ ...input, compressor: { ...input.compressor, isentropicEfficiency: input.compressor.isentropicEfficiency + 0.02 } });
-        const betterT = positive({ ...input, turbine: { ...input.turbine, isentropicEfficiency: input.turbine.isentropicEfficiency + 0.02 } });
+        const betterC = positive({
+          ...input,
+          compressor: { ...input.compressor, isentropicEfficiency: input.compressor.isentropicEfficiency + 0.02 },
+        });
+        const betterT = positive({
+          ...input,
+          turbine: { ...input.turbine, isentropicEfficiency: input.turbine.isentropicEfficiency + 0.02 },
+        });
         // A better turbine leaves cooler gas, so reheat may need more oxygen than is left: then no comparison.
         fc.pre(betterC !== null && betterT !== null);
-        return betterC!.thermalEfficiency > base!.thermalEfficiency && betterT!.thermalEfficiency > base!.thermalEfficiency;
+        return (
+          betterC!.thermalEfficiency > base!.thermalEfficiency && betterT!.thermalEfficiency > base!.thermalEfficiency
+        );
       }),
       { numRuns: 200 },
     );

@@ -1,11 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { type CycleResult, evaluateCycle } from '@/server/engine';
+
+import { evaluateCycle, type CycleResult } from '@/server/engine';
 import { burnToTemperature, makeFuel, makeStream } from '@/server/engine/processes/combustion';
 import { expand } from '@/server/engine/processes/expansion';
 import { regenerate } from '@/server/engine/processes/heat-exchange';
 import { humidAir } from '@/server/engine/properties/humid-air';
 import { expectClose } from '@/tests/helpers/expect-close';
-import { ISO_AMBIENT, irrCombustion, variant } from './cases';
+
+import { irrCombustion, ISO_AMBIENT, variant } from './cases';
 
 function byLabel(result: CycleResult, label: string) {
   const state = result.states.find((s) => s.label === label);
@@ -20,18 +22,24 @@ function byLabel(result: CycleResult, label: string) {
  */
 describe.each([
   ['2+2 combustion, 30 % hydrogen', irrCombustion],
-  ['3+3 combustion, methane, reheat below the inlet', variant(irrCombustion, (c) => {
-    c.compressor.stages = 3;
-    c.turbine.stages = 3;
-    c.compressor.pressureRatio = 18;
-    c.turbine.reheatTemperatureK = 1400;
-    c.fuel.hydrogenVolumeFraction = 0;
-    c.fuel.temperatureK = 350;
-  })],
+  [
+    '3+3 combustion, methane, reheat below the inlet',
+    variant(irrCombustion, (c) => {
+      c.compressor.stages = 3;
+      c.turbine.stages = 3;
+      c.compressor.pressureRatio = 18;
+      c.turbine.reheatTemperatureK = 1400;
+      c.fuel.hydrogenVolumeFraction = 0;
+      c.fuel.temperatureK = 350;
+    }),
+  ],
 ])('the turbine train agrees with the process functions: %s', (_name, input) => {
   const result = evaluateCycle(input, { paths: false });
   const states = result.states;
-  const air = makeStream(humidAir(ISO_AMBIENT.temperatureK, ISO_AMBIENT.pressureKPa, ISO_AMBIENT.relativeHumidity).amountsPerKg, 0);
+  const air = makeStream(
+    humidAir(ISO_AMBIENT.temperatureK, ISO_AMBIENT.pressureKPa, ISO_AMBIENT.relativeHumidity).amountsPerKg,
+    0,
+  );
   const fuel = makeFuel(input.fuel!.hydrogenVolumeFraction);
   const fuelK = input.fuel!.temperatureK;
   const m = input.turbine.stages;
@@ -43,11 +51,26 @@ describe.each([
     let stream = burnt.products;
     let state = byLabel(result, 'combustor exit');
     expectClose(state.massFlowRatio, stream.mass, { rel: 1e-12 }, 'combustor exit mass');
-    expectClose(state.enthalpyKJPerKg, stream.gas.enthalpyKJPerKg(state.temperatureK), { rel: 1e-12, abs: 1e-9 }, 'combustor exit h');
-    expectClose(state.entropyKJPerKgK, stream.gas.entropyKJPerKgK(state.temperatureK, state.pressureKPa), { rel: 1e-12 }, 'combustor exit s');
+    expectClose(
+      state.enthalpyKJPerKg,
+      stream.gas.enthalpyKJPerKg(state.temperatureK),
+      { rel: 1e-12, abs: 1e-9 },
+      'combustor exit h',
+    );
+    expectClose(
+      state.entropyKJPerKgK,
+      stream.gas.entropyKJPerKgK(state.temperatureK, state.pressureKPa),
+      { rel: 1e-12 },
+      'combustor exit s',
+    );
     for (let j = 1; j <= m; j++) {
       const exit = byLabel(result, m > 1 ? `turbine ${j} exit` : 'turbine exit');
-      const expected = expand(stream.gas, state, state.pressureKPa / exit.pressureKPa, input.turbine.isentropicEfficiency);
+      const expected = expand(
+        stream.gas,
+        state,
+        state.pressureKPa / exit.pressureKPa,
+        input.turbine.isentropicEfficiency,
+      );
       expectClose(exit.temperatureK, expected.temperatureK, { rel: 1e-11 }, `turbine ${j} exit T`);
       expectClose(exit.enthalpyKJPerKg, expected.enthalpyKJPerKg, { rel: 1e-11, abs: 1e-8 }, `turbine ${j} exit h`);
       expectClose(exit.entropyKJPerKgK, expected.entropyKJPerKgK, { rel: 1e-11 }, `turbine ${j} exit s`);
@@ -72,7 +95,14 @@ describe.each([
       result.fuelAirRatio!,
     );
     const expected = regenerate(
-      { coldGas: air.gas, coldInlet: coldIn, coldMass: 1, hotGas: exhaust.gas, hotInlet: hotIn, hotMass: hotIn.massFlowRatio },
+      {
+        coldGas: air.gas,
+        coldInlet: coldIn,
+        coldMass: 1,
+        hotGas: exhaust.gas,
+        hotInlet: hotIn,
+        hotMass: hotIn.massFlowRatio,
+      },
       input.regenerator!.effectiveness,
       input.regenerator!.airSidePressureLoss,
       input.regenerator!.gasSidePressureLoss,
@@ -89,11 +119,13 @@ describe('scratch reuse', () => {
     // The turbine train and the product mixtures reuse scratch arrays across evaluations;
     // nothing of one evaluation may leak into the next (not even its seeds).
     const first = JSON.stringify(evaluateCycle(irrCombustion));
-    evaluateCycle(variant(irrCombustion, (c) => {
-      c.compressor.pressureRatio = 30;
-      c.turbine.stages = 4;
-      c.fuel.hydrogenVolumeFraction = 1;
-    }));
+    evaluateCycle(
+      variant(irrCombustion, (c) => {
+        c.compressor.pressureRatio = 30;
+        c.turbine.stages = 4;
+        c.fuel.hydrogenVolumeFraction = 1;
+      }),
+    );
     expect(() => evaluateCycle(variant(irrCombustion, (c) => (c.turbine.reheatTemperatureK = 3400)))).toThrow();
     evaluateCycle(variant(irrCombustion, (c) => (c.fluid = 'constant-cp-air')));
     expect(JSON.stringify(evaluateCycle(irrCombustion))).toBe(first);

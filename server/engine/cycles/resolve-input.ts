@@ -20,7 +20,11 @@ export interface ResolvedInput {
   readonly compressorEfficiency: number;
   readonly intercoolTemperatureK: number;
   readonly intercoolerPressureLoss: number;
-  readonly regenerator: { readonly effectiveness: number; readonly airSidePressureLoss: number; readonly gasSidePressureLoss: number } | null;
+  readonly regenerator: {
+    readonly effectiveness: number;
+    readonly airSidePressureLoss: number;
+    readonly gasSidePressureLoss: number;
+  } | null;
   readonly combustorPressureLoss: number;
   readonly turbineStages: number;
   readonly turbineInletTemperatureK: number;
@@ -124,7 +128,10 @@ export function resolveInput(input: CycleInput): ResolvedInput {
   if (hasPressure) {
     ambientPressureKPa = finite(ambient.pressureKPa, 'ambient.pressureKPa');
     if (!(ambientPressureKPa > 0)) {
-      throw new EngineInputError('ambient.pressureKPa', `The ambient pressure must be above 0 kPa; got ${ambientPressureKPa}.`);
+      throw new EngineInputError(
+        'ambient.pressureKPa',
+        `The ambient pressure must be above 0 kPa; got ${ambientPressureKPa}.`,
+      );
     }
   } else if (hasElevation) {
     const elevationM = finite(ambient.elevationM, 'ambient.elevationM');
@@ -142,15 +149,26 @@ export function resolveInput(input: CycleInput): ResolvedInput {
 
   const fluid = root.fluid;
   if (fluid !== 'variable-cp-air' && fluid !== 'combustion' && fluid !== 'constant-cp-air') {
-    throw new EngineInputError('fluid', 'The working fluid must be "variable-cp-air", "combustion" or "constant-cp-air".');
+    throw new EngineInputError(
+      'fluid',
+      'The working fluid must be "variable-cp-air", "combustion" or "constant-cp-air".',
+    );
   }
 
   let fuel: ResolvedInput['fuel'] = null;
   if (root.fuel !== undefined && root.fuel !== null) {
     const f = section(root.fuel, 'fuel');
     fuel = {
-      hydrogenVolumeFraction: fraction(f.hydrogenVolumeFraction, 'fuel.hydrogenVolumeFraction', 'The hydrogen volume fraction'),
-      temperatureK: temperatureInRange(finite(f.temperatureK, 'fuel.temperatureK'), 'fuel.temperatureK', 'The fuel temperature'),
+      hydrogenVolumeFraction: fraction(
+        f.hydrogenVolumeFraction,
+        'fuel.hydrogenVolumeFraction',
+        'The hydrogen volume fraction',
+      ),
+      temperatureK: temperatureInRange(
+        finite(f.temperatureK, 'fuel.temperatureK'),
+        'fuel.temperatureK',
+        'The fuel temperature',
+      ),
     };
   } else if (fluid === 'combustion') {
     throw new EngineInputError('fuel', 'The combustion working fluid needs a fuel.');
@@ -184,12 +202,24 @@ export function resolveInput(input: CycleInput): ResolvedInput {
     const r = section(root.regenerator, 'regenerator');
     regenerator = {
       effectiveness: fraction(r.effectiveness, 'regenerator.effectiveness', 'The regenerator effectiveness'),
-      airSidePressureLoss: pressureLoss(r.airSidePressureLoss, 'regenerator.airSidePressureLoss', 'The regenerator air-side pressure loss'),
-      gasSidePressureLoss: pressureLoss(r.gasSidePressureLoss, 'regenerator.gasSidePressureLoss', 'The regenerator gas-side pressure loss'),
+      airSidePressureLoss: pressureLoss(
+        r.airSidePressureLoss,
+        'regenerator.airSidePressureLoss',
+        'The regenerator air-side pressure loss',
+      ),
+      gasSidePressureLoss: pressureLoss(
+        r.gasSidePressureLoss,
+        'regenerator.gasSidePressureLoss',
+        'The regenerator gas-side pressure loss',
+      ),
     };
   }
 
-  const combustorPressureLoss = pressureLoss(root.combustorPressureLoss, 'combustorPressureLoss', 'The combustor pressure loss');
+  const combustorPressureLoss = pressureLoss(
+    root.combustorPressureLoss,
+    'combustorPressureLoss',
+    'The combustor pressure loss',
+  );
 
   const turbine = section(root.turbine, 'turbine');
   const turbineStages = stageCount(turbine.stages, 'turbine.stages', 'The number of turbine stages');
@@ -198,17 +228,27 @@ export function resolveInput(input: CycleInput): ResolvedInput {
     'turbine.inletTemperatureK',
     'The turbine inlet temperature',
   );
-  const turbineEfficiency = efficiency(turbine.isentropicEfficiency, 'turbine.isentropicEfficiency', 'The turbine isentropic efficiency');
+  const turbineEfficiency = efficiency(
+    turbine.isentropicEfficiency,
+    'turbine.isentropicEfficiency',
+    'The turbine isentropic efficiency',
+  );
   const reheatTemperatureK = temperatureInRange(
     finite(turbine.reheatTemperatureK, 'turbine.reheatTemperatureK', turbineInletTemperatureK),
     'turbine.reheatTemperatureK',
     'The reheat temperature',
   );
-  const reheaterPressureLoss = pressureLoss(turbine.reheaterPressureLoss, 'turbine.reheaterPressureLoss', 'The reheater pressure loss', 0);
+  const reheaterPressureLoss = pressureLoss(
+    turbine.reheaterPressureLoss,
+    'turbine.reheaterPressureLoss',
+    'The reheater pressure loss',
+    0,
+  );
 
   const generatorEfficiency = efficiency(root.generatorEfficiency, 'generatorEfficiency', 'The generator efficiency');
   const netPowerKW = finite(root.netPowerKW, 'netPowerKW');
-  if (!(netPowerKW > 0)) throw new EngineInputError('netPowerKW', `The required net power must be above 0 kW; got ${netPowerKW}.`);
+  if (!(netPowerKW > 0))
+    throw new EngineInputError('netPowerKW', `The required net power must be above 0 kW; got ${netPowerKW}.`);
 
   const limits = isRecord(root.limits) ? root.limits : null;
   if (root.limits !== undefined && root.limits !== null && !limits) {
@@ -216,8 +256,15 @@ export function resolveInput(input: CycleInput): ResolvedInput {
   }
   const exhaustTemperatureMinK = optionalLimit(limits, 'exhaustTemperatureMinK', 'limits.exhaustTemperatureMinK');
   const exhaustTemperatureMaxK = optionalLimit(limits, 'exhaustTemperatureMaxK', 'limits.exhaustTemperatureMaxK');
-  if (exhaustTemperatureMinK !== null && exhaustTemperatureMaxK !== null && exhaustTemperatureMinK > exhaustTemperatureMaxK) {
-    throw new EngineInputError('limits.exhaustTemperatureMaxK', 'The top of the exhaust temperature window must not be below its bottom.');
+  if (
+    exhaustTemperatureMinK !== null &&
+    exhaustTemperatureMaxK !== null &&
+    exhaustTemperatureMinK > exhaustTemperatureMaxK
+  ) {
+    throw new EngineInputError(
+      'limits.exhaustTemperatureMaxK',
+      'The top of the exhaust temperature window must not be below its bottom.',
+    );
   }
 
   return {
@@ -240,7 +287,11 @@ export function resolveInput(input: CycleInput): ResolvedInput {
     reheaterPressureLoss,
     generatorEfficiency,
     netPowerKW,
-    maxTurbineInletTemperatureK: optionalLimit(limits, 'maxTurbineInletTemperatureK', 'limits.maxTurbineInletTemperatureK'),
+    maxTurbineInletTemperatureK: optionalLimit(
+      limits,
+      'maxTurbineInletTemperatureK',
+      'limits.maxTurbineInletTemperatureK',
+    ),
     exhaustTemperatureMinK,
     exhaustTemperatureMaxK,
   };

@@ -1,18 +1,31 @@
 import { EngineInputError } from '../errors';
-import { type Fuel, type GasStream, burnFuelInto, fuelEnthalpyAt, makeFuel, makeStream } from '../processes/combustion';
+import { burnFuelInto, fuelEnthalpyAt, makeFuel, makeStream, type Fuel, type GasStream } from '../processes/combustion';
 import { compress, newStageSeed } from '../processes/compression';
-import { type FlowState, stateAt, stateFromEnthalpy } from '../processes/flow-state';
+import { stateAt, stateFromEnthalpy, type FlowState } from '../processes/flow-state';
 import { changeTemperature } from '../processes/heat-exchange';
 import { ConstantCpAir } from '../properties/constant-cp-air';
 import type { GasModel } from '../properties/gas-model';
-import { IdealGasMixture } from '../properties/ideal-gas-mixture';
 import { humidAir } from '../properties/humid-air';
+import { IdealGasMixture } from '../properties/ideal-gas-mixture';
 import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K } from '../properties/nasa-species';
-import { type Polynomial, enthalpyOf, enthalpyWithLog, standardEntropyWithLog } from '../properties/property-polynomial';
-import { type ResolvedInput, resolveInput } from './resolve-input';
+import {
+  enthalpyOf,
+  enthalpyWithLog,
+  standardEntropyWithLog,
+  type Polynomial,
+} from '../properties/property-polynomial';
+import { resolveInput, type ResolvedInput } from './resolve-input';
 import { changingCompositionPath, isobarPath, polytropicPath } from './t-s-paths';
-import { type TrainPass, type TrainSetup, freshTrainPass, regeneratorDuty, runTrain } from './turbine-train';
-import type { CycleInput, CycleResult, CycleWarning, EvaluateOptions, PathKind, ProcessPath, StatePoint } from './types';
+import { freshTrainPass, regeneratorDuty, runTrain, type TrainPass, type TrainSetup } from './turbine-train';
+import type {
+  CycleInput,
+  CycleResult,
+  CycleWarning,
+  EvaluateOptions,
+  PathKind,
+  ProcessPath,
+  StatePoint,
+} from './types';
 
 /** Above this burner exit temperature the products dissociate noticeably, which complete combustion ignores (common practice). */
 const DISSOCIATION_WARNING_K = 2200;
@@ -57,10 +70,18 @@ function inletAir(r: ResolvedInput): InletAir {
   const p = r.ambientPressureKPa;
   const rh = r.relativeHumidity;
   // Compared as numbers: a string key would cost three number-to-text conversions per evaluation.
-  if (cachedAir && cachedAir.temperatureK === t && cachedAir.pressureKPa === p && cachedAir.relativeHumidity === rh) return cachedAir;
+  if (cachedAir && cachedAir.temperatureK === t && cachedAir.pressureKPa === p && cachedAir.relativeHumidity === rh)
+    return cachedAir;
   const humid = humidAir(t, p, rh);
   const stream = makeStream(humid.amountsPerKg, 0);
-  cachedAir = { temperatureK: t, pressureKPa: p, relativeHumidity: rh, gas: stream.gas, stream, polynomial: stream.gas.polynomial };
+  cachedAir = {
+    temperatureK: t,
+    pressureKPa: p,
+    relativeHumidity: rh,
+    gas: stream.gas,
+    stream,
+    polynomial: stream.gas.polynomial,
+  };
   return cachedAir;
 }
 
@@ -132,7 +153,11 @@ function closeRegeneratorLoop(s: TrainSetup, pass: TrainPass): number {
     runTrain(s, x, pass);
     const duty = regeneratorDuty(s, pass);
     const g = coldIn + duty - x;
-    if (iteration === MAX_COUPLING_PASSES - 1 || Math.abs(g) <= COUPLING_RELATIVE_TOLERANCE * Math.max(Math.abs(duty), 1)) break;
+    if (
+      iteration === MAX_COUPLING_PASSES - 1 ||
+      Math.abs(g) <= COUPLING_RELATIVE_TOLERANCE * Math.max(Math.abs(duty), 1)
+    )
+      break;
     const slope = iteration === 0 ? TYPICAL_COUPLING_SLOPE - 1 : (g - gPrevious) / (x - xPrevious);
     // A flat or non-finite secant means g is not behaving linearly: take a plain fixed-point step.
     const next = slope < 0 || slope > 0 ? x - g / slope : x + g;
@@ -273,7 +298,12 @@ function hotRecords(
     previousEnthalpy = enthalpy;
     records.push({
       label: k === 0 ? 'combustor exit' : expansion ? turbineLabels[(k + 1) / 2] : reheaterLabels[k / 2],
-      state: { temperatureK, pressureKPa, enthalpyKJPerKg: enthalpy, entropyKJPerKgK: gas.entropyKJPerKgK(temperatureK, pressureKPa) },
+      state: {
+        temperatureK,
+        pressureKPa,
+        enthalpyKJPerKg: enthalpy,
+        entropyKJPerKgK: gas.entropyKJPerKgK(temperatureK, pressureKPa),
+      },
       gas,
       mass,
       process: expansion ? 'expansion' : 'heat-addition',
@@ -321,18 +351,33 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
     const exit = compress(airGas, current, stageRatio, r.compressorEfficiency, seed);
     checkStageTemperature(exit.temperatureK, 'compressor', i);
     compressorWorkKJ += exit.enthalpyKJPerKg - current.enthalpyKJPerKg;
-    records.push({ label: compressorLabels[i], state: exit, gas: airGas, mass: 1, process: 'compression', burnt: false });
+    records.push({
+      label: compressorLabels[i],
+      state: exit,
+      gas: airGas,
+      mass: 1,
+      process: 'compression',
+      burnt: false,
+    });
     current = exit;
     if (i < n) {
       if (r.intercoolTemperatureK > exit.temperatureK && i === 1) {
         warnings.push({
           code: 'intercooler-heats-air',
           field: 'compressor.intercoolTemperatureK',
-          message: 'The intercooling temperature is above the compressor stage exit temperature, so the intercooler heats the air.',
+          message:
+            'The intercooling temperature is above the compressor stage exit temperature, so the intercooler heats the air.',
         });
       }
       const cooled = changeTemperature(airGas, exit, r.intercoolTemperatureK, r.intercoolerPressureLoss);
-      records.push({ label: intercoolerLabels[i], state: cooled, gas: airGas, mass: 1, process: 'heat-rejection', burnt: false });
+      records.push({
+        label: intercoolerLabels[i],
+        state: cooled,
+        gas: airGas,
+        mass: 1,
+        process: 'heat-rejection',
+        burnt: false,
+      });
       current = cooled;
     }
   }
@@ -386,9 +431,25 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
         message: `The compressor exit (${compressorExit.temperatureK.toFixed(1)} K) is hotter than the turbine exhaust (${exhaustK.toFixed(1)} K), so the regenerator would cool the air; leave it out or lower the pressure ratio.`,
       });
     }
-    records.push({ label: 'regenerator cold out', state: combustorInlet, gas: airGas, mass: 1, process: 'regenerator-heating', burnt: false });
+    records.push({
+      label: 'regenerator cold out',
+      state: combustorInlet,
+      gas: airGas,
+      mass: 1,
+      process: 'regenerator-heating',
+      burnt: false,
+    });
   }
-  const turbineWorkKJ = hotRecords(pass, airGas, combustion && air ? air.stream : null, combustion ? fuel : null, turbineInletKPa, expansionRatio, r, records);
+  const turbineWorkKJ = hotRecords(
+    pass,
+    airGas,
+    combustion && air ? air.stream : null,
+    combustion ? fuel : null,
+    turbineInletKPa,
+    expansionRatio,
+    r,
+    records,
+  );
   if (regenerator) {
     const hotIn = records[records.length - 1];
     records.push({
@@ -437,7 +498,8 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
   } else {
     warnings.push({
       code: 'no-net-work',
-      message: 'The turbines give no more work than the compressors take, so no air flow can deliver the required power.',
+      message:
+        'The turbines give no more work than the compressors take, so no air flow can deliver the required power.',
     });
   }
   resultWarnings(r, exhaust.state.temperatureK, combustion, warnings);
@@ -501,25 +563,78 @@ function buildPaths(records: StateRecord[], pointsPerProcess: number): ProcessPa
 
 /** Warnings from the ranges of common practice (PRODUCT defaults table). */
 function typicalRangeWarnings(r: ResolvedInput, warnings: CycleWarning[]): void {
-  checkTypical(warnings, r.compressorEfficiency, 0.75, 0.95, 'compressor.isentropicEfficiency', 'A compressor stage isentropic efficiency');
-  checkTypical(warnings, r.turbineEfficiency, 0.75, 0.95, 'turbine.isentropicEfficiency', 'A turbine stage isentropic efficiency');
+  checkTypical(
+    warnings,
+    r.compressorEfficiency,
+    0.75,
+    0.95,
+    'compressor.isentropicEfficiency',
+    'A compressor stage isentropic efficiency',
+  );
+  checkTypical(
+    warnings,
+    r.turbineEfficiency,
+    0.75,
+    0.95,
+    'turbine.isentropicEfficiency',
+    'A turbine stage isentropic efficiency',
+  );
   checkTypical(warnings, r.combustorPressureLoss, 0.01, 0.08, 'combustorPressureLoss', 'A combustor pressure loss');
   if (r.compressorStages > 1) {
-    checkTypical(warnings, r.intercoolerPressureLoss, 0, 0.05, 'compressor.intercoolerPressureLoss', 'An intercooler pressure loss');
+    checkTypical(
+      warnings,
+      r.intercoolerPressureLoss,
+      0,
+      0.05,
+      'compressor.intercoolerPressureLoss',
+      'An intercooler pressure loss',
+    );
   }
   if (r.regenerator) {
-    checkTypical(warnings, r.regenerator.effectiveness, 0.5, 0.95, 'regenerator.effectiveness', 'A regenerator effectiveness');
-    checkTypical(warnings, r.regenerator.airSidePressureLoss, 0, 0.08, 'regenerator.airSidePressureLoss', 'A regenerator air-side pressure loss');
-    checkTypical(warnings, r.regenerator.gasSidePressureLoss, 0, 0.08, 'regenerator.gasSidePressureLoss', 'A regenerator gas-side pressure loss');
+    checkTypical(
+      warnings,
+      r.regenerator.effectiveness,
+      0.5,
+      0.95,
+      'regenerator.effectiveness',
+      'A regenerator effectiveness',
+    );
+    checkTypical(
+      warnings,
+      r.regenerator.airSidePressureLoss,
+      0,
+      0.08,
+      'regenerator.airSidePressureLoss',
+      'A regenerator air-side pressure loss',
+    );
+    checkTypical(
+      warnings,
+      r.regenerator.gasSidePressureLoss,
+      0,
+      0.08,
+      'regenerator.gasSidePressureLoss',
+      'A regenerator gas-side pressure loss',
+    );
   }
   checkTypical(warnings, r.generatorEfficiency, 0.95, 1, 'generatorEfficiency', 'A generator efficiency');
 }
 
 // A module function, not a closure inside typicalRangeWarnings: the transpiler names every
 // closure it creates (a property definition on each call), which cost more than the checks.
-function checkTypical(warnings: CycleWarning[], value: number, low: number, high: number, field: string, what: string): void {
+function checkTypical(
+  warnings: CycleWarning[],
+  value: number,
+  low: number,
+  high: number,
+  field: string,
+  what: string,
+): void {
   if (value < low || value > high) {
-    warnings.push({ code: 'outside-typical-range', field, message: `${what} of ${value} is outside the usual ${low}–${high}.` });
+    warnings.push({
+      code: 'outside-typical-range',
+      field,
+      message: `${what} of ${value} is outside the usual ${low}–${high}.`,
+    });
   }
 }
 

@@ -121,13 +121,19 @@ function figuresOf(result: CycleResult): SweepFigures {
 }
 
 function validateSweep(input: SweepInput): { values: number[]; integer: boolean } {
-  if (typeof input !== 'object' || input === null) throw new EngineInputError('(body)', 'The sweep input must be an object.');
+  if (typeof input !== 'object' || input === null)
+    throw new EngineInputError('(body)', 'The sweep input must be an object.');
   if (!(SWEEP_PARAMETERS as readonly string[]).includes(input.parameter)) {
     throw new EngineInputError('parameter', `Unknown sweep parameter; use one of ${SWEEP_PARAMETERS.join(', ')}.`);
   }
   const { from, to, points } = input;
-  for (const [field, value] of [['from', from], ['to', to], ['points', points]] as const) {
-    if (typeof value !== 'number' || !Number.isFinite(value)) throw new EngineInputError(field, 'must be a finite number.');
+  for (const [field, value] of [
+    ['from', from],
+    ['to', to],
+    ['points', points],
+  ] as const) {
+    if (typeof value !== 'number' || !Number.isFinite(value))
+      throw new EngineInputError(field, 'must be a finite number.');
   }
   if (!(to > from)) throw new EngineInputError('to', `The end of the range must be above its start (${from}).`);
   if (!(Number.isInteger(points) && points >= 2 && points <= MAX_SWEEP_POINTS)) {
@@ -168,7 +174,8 @@ export function sweepStagedCycle(input: SweepInput): SweepResult {
     try {
       return { value, figures: figuresOf(evaluate(value)), error: null };
     } catch (error) {
-      if (error instanceof EngineInputError) return { value, figures: null, error: { field: error.field, message: error.message } };
+      if (error instanceof EngineInputError)
+        return { value, figures: null, error: { field: error.field, message: error.message } };
       throw error;
     }
   });

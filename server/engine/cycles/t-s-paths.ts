@@ -107,7 +107,8 @@ export function changingCompositionPath(
     const t = a.temperatureK + (b.temperatureK - a.temperatureK) * fraction;
     const p = a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction;
     temperatureK[j] = t;
-    entropyKJPerKgK[j] = entropyOf(poly, t) + (lossless ? pressureTerm : -r * Math.log(p / P0_KPA)) + (1 - fraction) * shift;
+    entropyKJPerKgK[j] =
+      entropyOf(poly, t) + (lossless ? pressureTerm : -r * Math.log(p / P0_KPA)) + (1 - fraction) * shift;
   }
   entropyKJPerKgK[0] = a.entropyKJPerKgK;
   entropyKJPerKgK[last] = b.entropyKJPerKgK;

@@ -14,9 +14,13 @@
  * The entropy of mixing is left out: at fixed composition it cancels from S(T2s) − S(T1).
  */
 import { EngineInputError } from '../errors';
+import {
+  POLYNOMIAL_MAX_K as DATA_MAX_K,
+  POLYNOMIAL_MIN_K as DATA_MIN_K,
+  UNIVERSAL_GAS_CONSTANT,
+} from '../properties/nasa-species';
 import * as propertyPolynomial from '../properties/property-polynomial';
 import type { Polynomial } from '../properties/property-polynomial';
-import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K, UNIVERSAL_GAS_CONSTANT } from '../properties/nasa-species';
 import { MAX_STAGES } from './resolve-input';
 
 // Local copies of the imported functions: once transpiled, every read of an imported binding
@@ -177,8 +181,8 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
         : passes === 1
           ? lastIsentropicK
           : j > 1
-          ? t * isentropicRatio
-          : t * Math.exp((s.logStagePressureRatio * rn) / cpOf(gas, t));
+            ? t * isentropicRatio
+            : t * Math.exp((s.logStagePressureRatio * rn) / cpOf(gas, t));
     const isentropicK = temperatureFromStandardEntropyOf(gas, entropy + rn * s.logStagePressureRatio, isentropicGuess);
     const isentropicEnthalpy = enthalpyOf(gas, isentropicK);
     const exitEnthalpy = h - s.efficiency * (h - isentropicEnthalpy);
@@ -191,8 +195,8 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
         : passes === 1
           ? lastExitK
           : j > 1
-          ? t * exitRatio
-          : isentropicK + (exitEnthalpy - isentropicEnthalpy) / cpOf(gas, isentropicK);
+            ? t * exitRatio
+            : isentropicK + (exitEnthalpy - isentropicEnthalpy) / cpOf(gas, isentropicK);
     const exitK = temperatureFromEnthalpyOf(gas, exitEnthalpy, exitGuess);
     isentropicRatio = isentropicK / t;
     exitRatio = exitK / t;
@@ -257,10 +261,20 @@ function record(pass: TrainPass, k: number, temperatureK: number, enthalpy: numb
  * of air, positive) when each kg of fuel releases `release`: the products are linear in the
  * fuel (see burnForRise in processes/combustion.ts), so fuel = rise / release, no iteration.
  */
-function burntToReach(s: TrainSetup, rise: number, release: number, burntBefore: number, field: string, outletK: number): number {
+function burntToReach(
+  s: TrainSetup,
+  rise: number,
+  release: number,
+  burntBefore: number,
+  field: string,
+  outletK: number,
+): number {
   const fuelKg = burntBefore + rise / release;
   if (!(release > 0) || !(fuelKg <= s.maxFuelKg)) {
-    throw new EngineInputError(field, `Reaching ${outletK} K would need more fuel than the oxygen in the gas can burn; lower the temperature.`);
+    throw new EngineInputError(
+      field,
+      `Reaching ${outletK} K would need more fuel than the oxygen in the gas can burn; lower the temperature.`,
+    );
   }
   return fuelKg;
 }

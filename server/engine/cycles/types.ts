@@ -73,12 +73,7 @@ export interface StatePoint {
 }
 
 export type PathKind =
-  | 'compression'
-  | 'expansion'
-  | 'heat-addition'
-  | 'heat-rejection'
-  | 'regenerator-heating'
-  | 'regenerator-cooling';
+  'compression' | 'expansion' | 'heat-addition' | 'heat-rejection' | 'regenerator-heating' | 'regenerator-cooling';
 
 /** One process drawn on the T-s diagram: points along the true curve, both ends included. */
 export interface ProcessPath {

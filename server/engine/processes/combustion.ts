@@ -1,13 +1,13 @@
 import {
-  IdealGasMixture,
-  EXTENSIVE_LENGTH,
-  SPECIES_COUNT,
   enthalpyOfCoefficients,
+  EXTENSIVE_LENGTH,
   extensiveCoefficients,
+  IdealGasMixture,
   massOfAmounts,
+  SPECIES_COUNT,
 } from '../properties/ideal-gas-mixture';
 import { SPECIES } from '../properties/nasa-species';
-import { type Polynomial, polynomialFromCoefficients } from '../properties/property-polynomial';
+import { polynomialFromCoefficients, type Polynomial } from '../properties/property-polynomial';
 
 const O2 = 1;
 const CO2 = 3;
@@ -60,7 +60,8 @@ export function makeFuel(hydrogenVolumeFraction: number): Fuel {
   const fuelCoefficients = extensiveCoefficients(fuelAmounts);
   // LHV = H(reactants) − H(products) at 298.15 K, per kg of fuel; products' water as vapour.
   const lowerHeatingValueKJPerKg =
-    enthalpyOfCoefficients(fuelCoefficients, LHV_REFERENCE_K) - enthalpyOfCoefficients(changeCoefficients, LHV_REFERENCE_K);
+    enthalpyOfCoefficients(fuelCoefficients, LHV_REFERENCE_K) -
+    enthalpyOfCoefficients(changeCoefficients, LHV_REFERENCE_K);
   return {
     hydrogenVolumeFraction: x,
     molarMassKgPerKmol: molarMass,
@@ -108,9 +109,16 @@ export type BurnOutcome =
  * and the products' amounts and polynomial are those of the stream plus m_f times the
  * fuel's change. Fails (no number) if the outlet is not above the inlet or the oxygen runs out.
  */
-export function burnToTemperature(stream: GasStream, inletK: number, outletK: number, fuel: Fuel, fuelK: number): BurnOutcome {
+export function burnToTemperature(
+  stream: GasStream,
+  inletK: number,
+  outletK: number,
+  fuel: Fuel,
+  fuelK: number,
+): BurnOutcome {
   if (!(outletK > inletK)) return { ok: false, reason: 'not-above-inlet', fuelKg: 0 };
-  const rise = enthalpyOfCoefficients(stream.coefficients, outletK) - enthalpyOfCoefficients(stream.coefficients, inletK);
+  const rise =
+    enthalpyOfCoefficients(stream.coefficients, outletK) - enthalpyOfCoefficients(stream.coefficients, inletK);
   return burnForRise(stream, rise, fuelRelease(fuel, fuelK, outletK), fuel);
 }
 
@@ -168,7 +176,13 @@ export function burnFuel(stream: GasStream, fuelKg: number, fuel: Fuel): GasStre
   const coefficients: number[] = new Array(LENGTH);
   for (let k = 0; k < LENGTH; k++) coefficients[k] = c[k] + fuelKg * d[k];
   const mass = stream.mass + fuelKg;
-  return { amounts, mass, fuelBurnt: stream.fuelBurnt + fuelKg, gas: new IdealGasMixture(amounts, coefficients, mass), coefficients };
+  return {
+    amounts,
+    mass,
+    fuelBurnt: stream.fuelBurnt + fuelKg,
+    gas: new IdealGasMixture(amounts, coefficients, mass),
+    coefficients,
+  };
 }
 
 // Scratch vectors of burnFuelInto: the mixture copies what it keeps, so they are free again on return.

@@ -1,5 +1,5 @@
 import type { GasModel } from '../properties/gas-model';
-import { type FlowState, stateFromEnthalpy } from './flow-state';
+import { stateFromEnthalpy, type FlowState } from './flow-state';
 
 /**
  * Temperatures of the last stage compressed with a seed, K (zero before the first): a stage
@@ -24,7 +24,13 @@ export function newStageSeed(): StageSeed {
  * Same gas throughout; units K, kPa, kJ/kg. `seed` (optional) carries the temperatures of
  * the previous like stage in and out (see StageSeed); it only speeds the inversions up.
  */
-export function compress(gas: GasModel, inlet: FlowState, pressureRatio: number, isentropicEfficiency: number, seed?: StageSeed): FlowState {
+export function compress(
+  gas: GasModel,
+  inlet: FlowState,
+  pressureRatio: number,
+  isentropicEfficiency: number,
+  seed?: StageSeed,
+): FlowState {
   const exitPressureKPa = inlet.pressureKPa * pressureRatio;
   const scale = seed && seed.inletK > 0 ? inlet.temperatureK / seed.inletK : 0;
   const isentropicExitK =
@@ -38,7 +44,9 @@ export function compress(gas: GasModel, inlet: FlowState, pressureRatio: number,
   const exitEnthalpy = inlet.enthalpyKJPerKg + (isentropicEnthalpy - inlet.enthalpyKJPerKg) / isentropicEfficiency;
   // Seed T(h) from the like stage, or one linear step from the isentropic exit (cp there needs no logarithm).
   const guessK =
-    scale > 0 ? seed!.exitK * scale : isentropicExitK + (exitEnthalpy - isentropicEnthalpy) / gas.cpKJPerKgK(isentropicExitK);
+    scale > 0
+      ? seed!.exitK * scale
+      : isentropicExitK + (exitEnthalpy - isentropicEnthalpy) / gas.cpKJPerKgK(isentropicExitK);
   const exit = stateFromEnthalpy(gas, exitEnthalpy, exitPressureKPa, guessK);
   if (seed) {
     seed.inletK = inlet.temperatureK;

@@ -1,6 +1,6 @@
 import type { GasModel } from '../properties/gas-model';
 import { isentropicExitTemperature } from './compression';
-import { type FlowState, stateFromEnthalpy } from './flow-state';
+import { stateFromEnthalpy, type FlowState } from './flow-state';
 
 /**
  * One adiabatic expansion stage of expansion ratio `expansionRatio` (p_inlet / p_exit > 1)
@@ -8,7 +8,12 @@ import { type FlowState, stateFromEnthalpy } from './flow-state';
  *   s°(T2s) = s°(T1) − R ln(p1/p2),   h2 = h1 − η (h1 − h2s).
  * Same gas throughout; units K, kPa, kJ/kg.
  */
-export function expand(gas: GasModel, inlet: FlowState, expansionRatio: number, isentropicEfficiency: number): FlowState {
+export function expand(
+  gas: GasModel,
+  inlet: FlowState,
+  expansionRatio: number,
+  isentropicEfficiency: number,
+): FlowState {
   const exitPressureKPa = inlet.pressureKPa / expansionRatio;
   const isentropicExitK = isentropicExitTemperature(gas, inlet.temperatureK, 1 / expansionRatio);
   const isentropicEnthalpy = gas.enthalpyKJPerKg(isentropicExitK);

@@ -23,12 +23,18 @@ export function stateAt(gas: GasModel, temperatureK: number, pressureKPa: number
     temperatureK,
     pressureKPa,
     enthalpyKJPerKg: enthalpyWithLog(p, temperatureK, lnT),
-    entropyKJPerKgK: standardEntropyWithLog(p, temperatureK, lnT) - gas.gasConstantKJPerKgK * Math.log(pressureKPa / P0_KPA),
+    entropyKJPerKgK:
+      standardEntropyWithLog(p, temperatureK, lnT) - gas.gasConstantKJPerKgK * Math.log(pressureKPa / P0_KPA),
   };
 }
 
 /** The full state of `gas` at specific enthalpy (kJ/kg) and pressure (kPa); `guessK` seeds the inversion. */
-export function stateFromEnthalpy(gas: GasModel, enthalpyKJPerKg: number, pressureKPa: number, guessK?: number): FlowState {
+export function stateFromEnthalpy(
+  gas: GasModel,
+  enthalpyKJPerKg: number,
+  pressureKPa: number,
+  guessK?: number,
+): FlowState {
   const temperatureK = gas.temperatureFromEnthalpy(enthalpyKJPerKg, guessK);
   return {
     temperatureK,

@@ -1,5 +1,5 @@
 import type { GasModel } from '../properties/gas-model';
-import { type FlowState, stateAt, stateFromEnthalpy } from './flow-state';
+import { stateAt, stateFromEnthalpy, type FlowState } from './flow-state';
 
 /**
  * Heating or cooling of one stream to a set temperature with a fractional pressure loss

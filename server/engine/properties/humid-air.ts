@@ -1,4 +1,5 @@
 import psychrolib from 'psychrolib';
+
 import { EngineInputError } from '../errors';
 import { dryAirAmounts } from './dry-air';
 import { IdealGasMixture, massOfAmounts } from './ideal-gas-mixture';

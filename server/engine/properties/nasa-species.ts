@@ -128,7 +128,7 @@ export const SPECIES: Readonly<Record<SpeciesName, NasaSpecies>> = {
     molarMass: 16.04246,
     low: [
       -1.766850998e5, 2.78618102e3, -1.20257785e1, 3.91761929e-2, -3.61905443e-5, 2.026853043e-8, -4.97670549e-12,
-      -2.331314360e4, 8.90432275e1,
+      -2.33131436e4, 8.90432275e1,
     ],
     high: [
       3.73004276e6, -1.383501485e4, 2.049107091e1, -1.961974759e-3, 4.72731304e-7, -3.72881469e-11, 1.623737207e-15,
@@ -168,7 +168,10 @@ export function speciesMolarEnthalpy(name: SpeciesName, temperatureK: number): n
   const t = temperatureK;
   return (
     UNIVERSAL_GAS_CONSTANT *
-    (-a[0] / t + a[1] * Math.log(t) + t * (a[2] + t * (a[3] / 2 + t * (a[4] / 3 + t * (a[5] / 4 + t * (a[6] / 5))))) + a[7])
+    (-a[0] / t +
+      a[1] * Math.log(t) +
+      t * (a[2] + t * (a[3] / 2 + t * (a[4] / 3 + t * (a[5] / 4 + t * (a[6] / 5))))) +
+      a[7])
   );
 }
 
@@ -179,7 +182,10 @@ export function speciesMolarEntropy(name: SpeciesName, temperatureK: number): nu
   const u = 1 / t;
   return (
     UNIVERSAL_GAS_CONSTANT *
-    ((-a[0] / 2 * u - a[1]) * u + a[2] * Math.log(t) + t * (a[3] + t * (a[4] / 2 + t * (a[5] / 3 + t * (a[6] / 4)))) + a[8])
+    (((-a[0] / 2) * u - a[1]) * u +
+      a[2] * Math.log(t) +
+      t * (a[3] + t * (a[4] / 2 + t * (a[5] / 3 + t * (a[6] / 4)))) +
+      a[8])
   );
 }
 

@@ -45,7 +45,14 @@ export function newPolynomial(): Polynomial {
   return out;
 }
 
-function fillRange(out: Polynomial, at: number, c: ArrayLike<number>, o: number, scale: number, entropyOffset: number): void {
+function fillRange(
+  out: Polynomial,
+  at: number,
+  c: ArrayLike<number>,
+  o: number,
+  scale: number,
+  entropyOffset: number,
+): void {
   const a1 = c[o] * scale;
   const a2 = c[o + 1] * scale;
   const a3 = c[o + 2] * scale;
@@ -83,14 +90,23 @@ function fillRange(out: Polynomial, at: number, c: ArrayLike<number>, o: number,
  * (see extensiveCoefficients), multiplied by `scale` (1 / mass for specific properties), with
  * `entropyOffset` added to s° (the entropy of mixing, in the same units).
  */
-export function polynomialFromCoefficients(coefficients: ArrayLike<number>, scale: number, entropyOffset: number): Polynomial {
+export function polynomialFromCoefficients(
+  coefficients: ArrayLike<number>,
+  scale: number,
+  entropyOffset: number,
+): Polynomial {
   const out = newPolynomial();
   fillPolynomial(out, coefficients, scale, entropyOffset);
   return out;
 }
 
 /** polynomialFromCoefficients into an existing polynomial, in place. */
-export function fillPolynomial(out: Polynomial, coefficients: ArrayLike<number>, scale: number, entropyOffset: number): void {
+export function fillPolynomial(
+  out: Polynomial,
+  coefficients: ArrayLike<number>,
+  scale: number,
+  entropyOffset: number,
+): void {
   fillRange(out, 0, coefficients, 0, scale, entropyOffset);
   fillRange(out, RANGE, coefficients, HIGH_COEFFICIENTS, scale, entropyOffset);
 }
@@ -139,7 +155,12 @@ export function enthalpyOf(p: Polynomial, temperatureK: number): number {
 export function enthalpyWithLog(p: Polynomial, temperatureK: number, lnT: number): number {
   const o = temperatureK < BREAK_K ? 0 : RANGE;
   const t = temperatureK;
-  return p[o + 7] / t + p[o + 8] * lnT + t * (p[o + 9] + t * (p[o + 10] + t * (p[o + 11] + t * (p[o + 12] + t * p[o + 13])))) + p[o + 14];
+  return (
+    p[o + 7] / t +
+    p[o + 8] * lnT +
+    t * (p[o + 9] + t * (p[o + 10] + t * (p[o + 11] + t * (p[o + 12] + t * p[o + 13])))) +
+    p[o + 14]
+  );
 }
 
 /** s°(T) from a property polynomial (at 100 kPa). 200–6000 K. */
@@ -152,7 +173,12 @@ export function standardEntropyWithLog(p: Polynomial, temperatureK: number, lnT:
   const o = temperatureK < BREAK_K ? 0 : RANGE;
   const t = temperatureK;
   const u = 1 / t;
-  return (p[o + 15] * u + p[o + 16]) * u + p[o + 17] * lnT + t * (p[o + 18] + t * (p[o + 19] + t * (p[o + 20] + t * p[o + 21]))) + p[o + 22];
+  return (
+    (p[o + 15] * u + p[o + 16]) * u +
+    p[o + 17] * lnT +
+    t * (p[o + 18] + t * (p[o + 19] + t * (p[o + 20] + t * p[o + 21]))) +
+    p[o + 22]
+  );
 }
 
 /**
@@ -183,16 +209,25 @@ function invert(p: Polynomial, target: number, guessK: number, entropy: boolean)
     const u = 1 / t;
     const lnT = Math.log(t);
     const cp = (p[o] * u + p[o + 1]) * u + p[o + 2] + t * (p[o + 3] + t * (p[o + 4] + t * (p[o + 5] + t * p[o + 6])));
-    const cpSlope = -(2 * p[o] * u + p[o + 1]) * u * u + p[o + 3] + t * (2 * p[o + 4] + t * (3 * p[o + 5] + t * 4 * p[o + 6]));
+    const cpSlope =
+      -(2 * p[o] * u + p[o + 1]) * u * u + p[o + 3] + t * (2 * p[o + 4] + t * (3 * p[o + 5] + t * 4 * p[o + 6]));
     let value: number;
     let slope: number;
     let curvature: number;
     if (entropy) {
-      value = (p[o + 15] * u + p[o + 16]) * u + p[o + 17] * lnT + t * (p[o + 18] + t * (p[o + 19] + t * (p[o + 20] + t * p[o + 21]))) + p[o + 22];
+      value =
+        (p[o + 15] * u + p[o + 16]) * u +
+        p[o + 17] * lnT +
+        t * (p[o + 18] + t * (p[o + 19] + t * (p[o + 20] + t * p[o + 21]))) +
+        p[o + 22];
       slope = cp * u;
       curvature = (cpSlope - cp * u) * u;
     } else {
-      value = p[o + 7] * u + p[o + 8] * lnT + t * (p[o + 9] + t * (p[o + 10] + t * (p[o + 11] + t * (p[o + 12] + t * p[o + 13])))) + p[o + 14];
+      value =
+        p[o + 7] * u +
+        p[o + 8] * lnT +
+        t * (p[o + 9] + t * (p[o + 10] + t * (p[o + 11] + t * (p[o + 12] + t * p[o + 13])))) +
+        p[o + 14];
       slope = cp;
       curvature = cpSlope;
     }
@@ -212,7 +247,14 @@ function invert(p: Polynomial, target: number, guessK: number, entropy: boolean)
     const denominator = squared - 0.5 * residual * curvature;
     const halley = denominator > 0.5 * squared && denominator < 2 * squared;
     let next = halley ? t - (residual * slope) / denominator : t - residual / slope;
-    if (halley && Math.abs(next - t) <= ACCEPT_STEP_RELATIVE * t && next > lo && next < hi && next < BREAK_K === t < BREAK_K) return next;
+    if (
+      halley &&
+      Math.abs(next - t) <= ACCEPT_STEP_RELATIVE * t &&
+      next > lo &&
+      next < hi &&
+      next < BREAK_K === t < BREAK_K
+    )
+      return next;
     if (Math.abs(next - t) <= INVERSION_RELATIVE_TOLERANCE * t) return next;
     if (!(next > lo && next < hi) || !(slope > 0)) next = 0.5 * (lo + hi);
     if (hi - lo <= INVERSION_RELATIVE_TOLERANCE * t) return 0.5 * (lo + hi);
