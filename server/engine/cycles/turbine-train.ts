@@ -162,7 +162,7 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
   const m = s.stages;
   // Seeds of the inversions. From the third pass on, each temperature is extrapolated
   // linearly in the combustor inlet enthalpy from the last two passes (the passes close in
-  // on the answer, so this lands within a small fraction of a kelvin: one step); on the
+  // on the answer, so this lands within a hundredth of a kelvin or so: one step); on the
   // second pass, the first pass's value; on the first pass, the temperature ratios of the
   // stage before (stages behind a reheat start where the first started), and for the first
   // stage the constant-cp answer.

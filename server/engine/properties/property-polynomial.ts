@@ -185,7 +185,7 @@ export function standardEntropyWithLog(p: Polynomial, temperatureK: number, lnT:
  * T(h) by safeguarded Halley steps (Newton's method corrected for the curvature; dh/dT =
  * cp > 0), kept inside a bracket that shrinks with every step, falling back to bisection if a
  * step leaves it; to 1e-12 relative. `guessK` seeds it: from a guess within a few kelvin two
- * evaluations are enough, from within a fraction of a kelvin one (see invert).
+ * evaluations are enough, from within 1e-5 T (about a hundredth of a kelvin) one (see invert).
  */
 export function temperatureFromEnthalpyOf(p: Polynomial, enthalpy: number, guessK: number): number {
   return invert(p, enthalpy, guessK, false);
