@@ -238,7 +238,7 @@ function invert(p: Polynomial, target: number, guessK: number, entropy: boolean)
     // Halley's step (Newton's, corrected for the curvature) converges cubically: after a
     // step δ the error is about C δ³, with C below 5e-6 /K² for h and s° of these gases over
     // 200–6000 K (measured over the species and typical mixtures). A step under 1e-5 T thus
-    // leaves an error below 5e-21 T³ ≤ 2e-13 T, so it is taken and accepted without one
+    // leaves an error below 5e-21 T³ ≤ 2e-13 T (T ≤ 6000 K), so it is accepted without one
     // more evaluation to confirm it (unless it crosses the 1000 K break, where the other
     // range's polynomial takes over).
     // Far from the root, where the correction would be large, it takes a plain Newton step.
