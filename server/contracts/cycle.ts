@@ -1,5 +1,7 @@
 import { z } from 'zod';
 
+import { SWEEP_PARAMETERS } from '@/server/engine/cycles/sweep-parameters';
+
 /**
  * Request bodies of the cycle engine (POST /api/cycles/evaluate and /sweep), shared with
  * the app's forms. SI units; pressure losses, efficiencies and effectiveness as fractions.
@@ -165,33 +167,9 @@ export const evaluateRequestSchema = cycleInputSchema.transform((value) => ({
   },
 }));
 
-export const sweepParameterSchema = z.enum(
-  [
-    'ambient.temperatureK',
-    'ambient.pressureKPa',
-    'ambient.elevationM',
-    'ambient.relativeHumidity',
-    'fuel.hydrogenVolumeFraction',
-    'fuel.temperatureK',
-    'compressor.stages',
-    'compressor.pressureRatio',
-    'compressor.isentropicEfficiency',
-    'compressor.intercoolTemperatureK',
-    'compressor.intercoolerPressureLoss',
-    'regenerator.effectiveness',
-    'regenerator.airSidePressureLoss',
-    'regenerator.gasSidePressureLoss',
-    'combustorPressureLoss',
-    'turbine.stages',
-    'turbine.inletTemperatureK',
-    'turbine.isentropicEfficiency',
-    'turbine.reheatTemperatureK',
-    'turbine.reheaterPressureLoss',
-    'generatorEfficiency',
-    'netPowerKW',
-  ],
-  { error: 'Sweep parameter must be one of the numeric inputs, e.g. compressor.pressureRatio.' },
-);
+export const sweepParameterSchema = z.enum(SWEEP_PARAMETERS, {
+  error: 'Sweep parameter must be one of the numeric inputs, e.g. compressor.pressureRatio.',
+});
 
 /** Body of POST /sweep. Defaults left out of `base` follow the swept value (reheat follows the turbine inlet). */
 export const sweepRequestSchema = z

@@ -1,35 +1,10 @@
 import { EngineInputError } from '../errors';
 import { maximizeBrent } from '../solvers/optimum';
 import { evaluateStagedCycle } from './staged-cycle';
+import { SWEEP_PARAMETERS, type SweepParameter } from './sweep-parameters';
 import type { CycleInput, CycleResult } from './types';
 
-/** Every numeric input a sweep can vary, by its dotted path. */
-export const SWEEP_PARAMETERS = [
-  'ambient.temperatureK',
-  'ambient.pressureKPa',
-  'ambient.elevationM',
-  'ambient.relativeHumidity',
-  'fuel.hydrogenVolumeFraction',
-  'fuel.temperatureK',
-  'compressor.stages',
-  'compressor.pressureRatio',
-  'compressor.isentropicEfficiency',
-  'compressor.intercoolTemperatureK',
-  'compressor.intercoolerPressureLoss',
-  'regenerator.effectiveness',
-  'regenerator.airSidePressureLoss',
-  'regenerator.gasSidePressureLoss',
-  'combustorPressureLoss',
-  'turbine.stages',
-  'turbine.inletTemperatureK',
-  'turbine.isentropicEfficiency',
-  'turbine.reheatTemperatureK',
-  'turbine.reheaterPressureLoss',
-  'generatorEfficiency',
-  'netPowerKW',
-] as const;
-
-export type SweepParameter = (typeof SWEEP_PARAMETERS)[number];
+export { SWEEP_PARAMETERS, type SweepParameter };
 
 export const MAX_SWEEP_POINTS = 1000;
 
