@@ -145,3 +145,21 @@ const styles = StyleSheet.create({
     justifyContent: 'center',
   },
 });
+
+/** Input settings every e-mail field shares: the right keyboard, no capitals, autofill. */
+export const emailInput = {
+  keyboardType: 'email-address',
+  inputMode: 'email',
+  autoCapitalize: 'none',
+  autoComplete: 'email',
+} as const satisfies Partial<TextInputProps>;
+
+/** A form-level error under the fields (field errors sit at their field). */
+export function FormError({ message, testID }: { message: string | null | undefined; testID: string }) {
+  if (!message) return null;
+  return (
+    <Text size="small" tone="danger" role="alert" testID={testID}>
+      {message}
+    </Text>
+  );
+}

@@ -6,7 +6,7 @@ import { authCall } from '@/components/auth/auth-call';
 import { authClient } from '@/components/auth/auth-client';
 import { emailField, signInPassword } from '@/components/auth/credentials';
 import { Button } from '@/components/ui/button';
-import { Field } from '@/components/ui/field';
+import { emailInput, Field, FormError } from '@/components/ui/field';
 import { messageFor } from '@/components/ui/message-for';
 import { Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
@@ -50,10 +50,7 @@ export function SignInForm({
         value={email.value}
         onChangeText={email.setValue}
         error={email.error}
-        keyboardType="email-address"
-        inputMode="email"
-        autoCapitalize="none"
-        autoComplete="email"
+        {...emailInput}
         returnKeyType="next"
         onSubmitEditing={() => passwordRef.current?.focus()}
         testID="sign-in-email"
@@ -70,11 +67,7 @@ export function SignInForm({
         onSubmitEditing={() => void submit()}
         testID="sign-in-password"
       />
-      {error ? (
-        <Text size="small" tone="danger" role="alert" testID="sign-in-error">
-          {error}
-        </Text>
-      ) : null}
+      <FormError message={error} testID="sign-in-error" />
       <Button label="Sign in" busy={busy} onPress={() => void submit()} testID="sign-in-button" />
     </View>
   );

@@ -7,7 +7,7 @@ import { authClient } from '@/components/auth/auth-client';
 import { emailField, passwordField, personName } from '@/components/auth/credentials';
 import { isApiError } from '@/components/data/api-error';
 import { Button } from '@/components/ui/button';
-import { Field } from '@/components/ui/field';
+import { emailInput, Field, FormError } from '@/components/ui/field';
 import { messageFor } from '@/components/ui/message-for';
 import { Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
@@ -75,10 +75,7 @@ export function SignUpForm({
         value={email.value}
         onChangeText={email.setValue}
         error={email.error}
-        keyboardType="email-address"
-        inputMode="email"
-        autoCapitalize="none"
-        autoComplete="email"
+        {...emailInput}
         returnKeyType="next"
         onSubmitEditing={() => passwordRef.current?.focus()}
         testID="sign-up-email"
@@ -96,11 +93,7 @@ export function SignUpForm({
         onSubmitEditing={() => void submit()}
         testID="sign-up-password"
       />
-      {error ? (
-        <Text size="small" tone="danger" role="alert" testID="sign-up-error">
-          {error}
-        </Text>
-      ) : null}
+      <FormError message={error} testID="sign-up-error" />
       <Button label="Create account" busy={busy} onPress={() => void submit()} testID="sign-up-button" />
     </View>
   );

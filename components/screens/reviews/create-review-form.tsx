@@ -4,7 +4,7 @@ import { isApiError } from '@/components/data/api-error';
 import { useCreateReviewMutation } from '@/components/data/reviews';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Field } from '@/components/ui/field';
+import { Field, FormError } from '@/components/ui/field';
 import { useMessage } from '@/components/ui/message';
 import { messageFor } from '@/components/ui/message-for';
 import { Heading, Text } from '@/components/ui/text';
@@ -74,11 +74,7 @@ export function CreateReviewForm({ teamId, onDone }: { teamId: string; onDone: (
         numberOfLines={3}
         testID="review-summary-input"
       />
-      {formError ? (
-        <Text size="small" tone="danger" role="alert" testID="create-review-error">
-          {formError}
-        </Text>
-      ) : null}
+      <FormError message={formError} testID="create-review-error" />
       <View style={styles.actions}>
         <Button label="Cancel" variant="quiet" onPress={onDone} testID="create-review-cancel" />
         <Button label="Create review" busy={create.isPending} onPress={submit} testID="create-review-button" />

@@ -6,7 +6,7 @@ import { useCreateTeamMutation } from '@/components/data/teams';
 import { useCurrentTeam } from '@/components/state/current-team';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Field } from '@/components/ui/field';
+import { Field, FormError } from '@/components/ui/field';
 import { messageFor } from '@/components/ui/message-for';
 import { Screen } from '@/components/ui/screen';
 import { Text } from '@/components/ui/text';
@@ -62,11 +62,7 @@ export function CreateTeamScreen({ first = false }: { first?: boolean }) {
           onSubmitEditing={submit}
           testID="team-name-input"
         />
-        {formError ? (
-          <Text size="small" tone="danger" role="alert" testID="create-team-error">
-            {formError}
-          </Text>
-        ) : null}
+        <FormError message={formError} testID="create-team-error" />
         <View style={styles.actions}>
           <Button label="Create team" busy={create.isPending} onPress={submit} testID="create-team-button" />
         </View>

@@ -5,7 +5,7 @@ import { isApiError } from '@/components/data/api-error';
 import { useInviteMemberMutation } from '@/components/data/teams';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Choice, Field } from '@/components/ui/field';
+import { Choice, Field, FormError } from '@/components/ui/field';
 import { useMessage } from '@/components/ui/message';
 import { messageFor } from '@/components/ui/message-for';
 import { Heading, Text } from '@/components/ui/text';
@@ -70,11 +70,7 @@ export function InviteForm({ teamId }: { teamId: string }) {
       <Text size="small" tone="muted">
         {roleHints[role]}
       </Text>
-      {formError ? (
-        <Text size="small" tone="danger" role="alert" testID="invite-error">
-          {formError}
-        </Text>
-      ) : null}
+      <FormError message={formError} testID="invite-error" />
       <View style={styles.actions}>
         <Button label="Send invitation" busy={invite.isPending} onPress={submit} testID="invite-send-button" />
       </View>
