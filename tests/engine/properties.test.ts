@@ -24,8 +24,8 @@ describe('dry air against the ideal-gas air table', () => {
   // per kg, values from memory. The table and our data use different reference states, so
   // ours are anchored to the table at 300 K: h_table(300) + [h(T) − h(300)], likewise s°,
   // and compared with the tabulated value at T within 0.1 %.
-  // (Measured against the change from 300 K alone, the worst point is Δh at 250 K at 0.10 %;
-  // at 500 K, where the table's older cp data sit below JANAF, 0.06 %.)
+  // (Measured against the change from 300 K alone, the worst point is Δh at 250 K: 0.103 %,
+  // 0.05 kJ/kg on a 50 kJ/kg change, within the table's last printed digit; at 500 K 0.06 %.)
   const table = [
     { temperatureK: 250, h: 250.05, s: 1.51917 },
     { temperatureK: 500, h: 503.02, s: 2.21952 },
@@ -45,18 +45,22 @@ describe('dry air against the ideal-gas air table', () => {
     expectClose(ours, s, { rel: 1e-3 }, `s° at ${temperatureK} K`);
   });
 
-  it('changes from 300 K agree within 0.15 % everywhere', () => {
+  it('changes from 300 K agree within 0.1 % plus the rounding of the printed table everywhere', () => {
+    // The table prints h to 0.01 kJ/kg and s° to 0.00001 kJ/kg·K: a difference of two entries
+    // carries up to one unit of the last digit on top of the 0.1 %.
     for (const { temperatureK, h, s } of table) {
+      const dh = h - base.h;
+      const ds = s - base.s;
       expectClose(
         dryAir.enthalpyKJPerKg(temperatureK) - dryAir.enthalpyKJPerKg(300),
-        h - base.h,
-        { rel: 1.5e-3 },
+        dh,
+        { abs: 1e-3 * Math.abs(dh) + 0.01 },
         `Δh ${temperatureK}`,
       );
       expectClose(
         dryAir.standardEntropyKJPerKgK(temperatureK) - dryAir.standardEntropyKJPerKgK(300),
-        s - base.s,
-        { rel: 1.5e-3 },
+        ds,
+        { abs: 1e-3 * Math.abs(ds) + 1e-5 },
         `Δs° ${temperatureK}`,
       );
     }
