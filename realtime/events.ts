@@ -21,7 +21,6 @@ export const teamRoomPayload = z.strictObject({
 });
 
 export const teamRoom = (teamId: string) => `team:${teamId}`;
-export const reviewRoom = (reviewId: string) => `review:${reviewId}`;
 
 /** What services use to tell the room about a change; a no-op stand-in where nobody listens. */
 export type Broadcast = {

@@ -23,7 +23,7 @@ export type AppDeps = {
   webDir?: string;
 };
 
-export const jsonBodyLimit = '256kb';
+const jsonBodyLimit = '256kb';
 
 /** Builds the Express app; `server/index.ts` listens, tests use it as it is. */
 export function createApp({ db, auth, broadcast, webDir }: AppDeps): Express {

@@ -1,6 +1,5 @@
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import path from 'node:path';
 
 import { createDatabase } from '@/db/client';
 import type { Broadcast } from '@/realtime/events';
@@ -54,29 +53,4 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
       await db.$client.end();
     },
   };
-}
-
-function requireEnv(name: string): string {
-  const value = process.env[name];
-  if (!value) {
-    console.error(`Missing environment variable ${name}. Start the product with "npm start".`);
-    process.exit(1);
-  }
-  return value;
-}
-
-// Run directly (node --import tsx server/index.ts) with the environment `npm start` prepares.
-if (require.main === module) {
-  startServer({
-    databaseUrl: requireEnv('DATABASE_URL'),
-    secret: requireEnv('BETTER_AUTH_SECRET'),
-    smtp: { host: process.env.SMTP_HOST ?? '127.0.0.1', port: Number(process.env.SMTP_PORT ?? 2525) },
-    port: Number(process.env.PORT ?? 8090),
-    webDir: process.env.WEB_DIR ?? path.resolve(__dirname, '..', 'dist'),
-  })
-    .then((s) => console.log(`Cyclemoot listening at ${s.url}`))
-    .catch((error) => {
-      console.error(error);
-      process.exit(1);
-    });
 }

@@ -22,5 +22,3 @@ export const activity = pgTable(
     index('activity_review_idx').on(table.reviewId, table.createdAt),
   ],
 );
-
-export type ActivityRow = typeof activity.$inferSelect;

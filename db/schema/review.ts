@@ -27,5 +27,3 @@ export const review = pgTable(
     index('review_team_idx').on(table.teamId, table.status),
   ],
 );
-
-export type ReviewRow = typeof review.$inferSelect;

@@ -18,9 +18,6 @@ export class ApiError extends Error {
     this.name = 'ApiError';
   }
 
-  static badRequest(message: string, code = 'bad_request') {
-    return new ApiError(400, code, message);
-  }
   static unauthorized(message = 'Sign in to continue.') {
     return new ApiError(401, 'unauthorized', message);
   }
@@ -29,9 +26,6 @@ export class ApiError extends Error {
   }
   static notFound(what = 'The requested item') {
     return new ApiError(404, 'not_found', `${what} was not found.`);
-  }
-  static conflict(message: string) {
-    return new ApiError(409, 'conflict', message);
   }
   /** 422 for one named field. */
   static invalidField(field: string, message: string, code = 'invalid_input') {
@@ -57,9 +51,5 @@ export function parse<S extends z.ZodType>(schema: S, input: unknown): z.output<
     (fieldErrors[key] ??= []).push(issue.message);
   }
   const [field, messages] = Object.entries(fieldErrors)[0] ?? ['(body)', ['Invalid input']];
-  return throwInvalid(field, messages[0], fieldErrors);
-}
-
-function throwInvalid(field: string, message: string, fieldErrors: FieldErrors): never {
-  throw new ApiError(422, 'invalid_input', `${field}: ${message}`, { field, fieldErrors });
+  throw new ApiError(422, 'invalid_input', `${field}: ${messages[0]}`, { field, fieldErrors });
 }

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { accessSync, constants, mkdirSync, statSync } from 'node:fs';
+import { mkdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 
 export const repoRoot = path.resolve(__dirname, '..', '..');
@@ -31,13 +31,4 @@ export function stateDir(): string {
       : path.join('/var/tmp', `cyclemoot-${createHash('sha1').update(repoRoot).digest('hex').slice(0, 10)}`);
   mkdirSync(dir, { recursive: true, mode: 0o755 });
   return dir;
-}
-
-export function isWritable(file: string): boolean {
-  try {
-    accessSync(file, constants.W_OK);
-    return true;
-  } catch {
-    return false;
-  }
 }
