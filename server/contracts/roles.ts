@@ -69,6 +69,15 @@ export function roleAllows(role: string, permission: Permission): boolean {
     });
 }
 
+/**
+ * The role a stored member role string stands for: better-auth keeps roles as a
+ * comma-separated list; we give each member one, so the first is the one.
+ */
+export function primaryRole(stored: string | null): TeamRole | undefined {
+  const first = (stored ?? '').split(',')[0]?.trim() ?? '';
+  return isTeamRole(first) ? first : undefined;
+}
+
 export function isTeamRole(value: string): value is TeamRole {
   return (teamRoles as readonly string[]).includes(value);
 }

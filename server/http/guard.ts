@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm';
 
 import type { Database } from '@/db/client';
 import { member, review } from '@/db/schema';
-import { isTeamRole, roleAllows, type Permission, type TeamRole } from '@/server/contracts/roles';
+import { primaryRole, roleAllows, type Permission, type TeamRole } from '@/server/contracts/roles';
 
 import { ApiError } from './errors';
 
@@ -27,8 +27,8 @@ export async function requireTeam(
     .where(and(eq(member.organizationId, teamId), eq(member.userId, userId)))
     .limit(1);
   if (!row) throw ApiError.notFound('The team');
-  const role = row.role.split(',')[0]?.trim() ?? '';
-  if (!isTeamRole(role)) throw ApiError.forbidden(`Your role "${row.role}" is not one of this product's roles.`);
+  const role = primaryRole(row.role);
+  if (!role) throw ApiError.forbidden(`Your role "${row.role}" is not one of this product's roles.`);
   if (permission && !roleAllows(role, permission)) throw ApiError.forbidden();
   return { teamId, role, memberId: row.id };
 }

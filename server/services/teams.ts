@@ -2,14 +2,12 @@ import { and, asc, eq, gt } from 'drizzle-orm';
 
 import type { Database } from '@/db/client';
 import { invitation, member, organization, user } from '@/db/schema';
-import { isTeamRole, type TeamRole } from '@/server/contracts/roles';
+import { primaryRole, type TeamRole } from '@/server/contracts/roles';
 import type { Me, TeamDetail } from '@/server/contracts/team';
 import { ApiError } from '@/server/http/errors';
 
-const firstRole = (role: string | null): TeamRole => {
-  const r = (role ?? '').split(',')[0]?.trim() ?? '';
-  return isTeamRole(r) ? r : 'observer';
-};
+// Anything unknown reads as the least a member can do.
+const firstRole = (stored: string | null): TeamRole => primaryRole(stored) ?? 'observer';
 
 export async function getMe(db: Database, me: { id: string; name: string; email: string }): Promise<Me> {
   const rows = await db
