@@ -1,12 +1,10 @@
 import { sql } from 'drizzle-orm';
 import { Router } from 'express';
-import { z } from 'zod';
 
 import type { Database } from '@/db/client';
 import { parse } from '@/server/http/errors';
+import { invitationParams } from '@/server/http/params';
 import { getPublicInvitation } from '@/server/services/teams';
-
-const invitationParams = z.object({ invitationId: z.string().min(1).max(100) });
 
 /** Routes that answer without a session: health and the invitation preview. */
 export function publicRouter({ db }: { db: Database }): Router {

@@ -1,15 +1,12 @@
 import { Router } from 'express';
-import { z } from 'zod';
 
 import type { Database } from '@/db/client';
 import type { Broadcast } from '@/realtime/events';
 import { createReviewInput, listReviewsQuery, updateReviewInput } from '@/server/contracts/review';
 import { parse } from '@/server/http/errors';
 import { requireReview, requireTeam } from '@/server/http/guard';
+import { reviewParams, teamParams } from '@/server/http/params';
 import { createReview, getReview, listReviews, updateReview } from '@/server/services/reviews';
-
-const teamParams = z.object({ teamId: z.string().min(1).max(100) });
-const reviewParams = z.object({ reviewId: z.string().min(1).max(100) });
 
 export function reviewsRouter({ db, broadcast }: { db: Database; broadcast: Broadcast }): Router {
   const router = Router();

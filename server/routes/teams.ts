@@ -1,13 +1,11 @@
 import { Router } from 'express';
-import { z } from 'zod';
 
 import type { Database } from '@/db/client';
 import { parse } from '@/server/http/errors';
 import { requireTeam } from '@/server/http/guard';
+import { teamParams } from '@/server/http/params';
 import { listTeamActivity } from '@/server/services/activity';
 import { getMe, getTeamDetail } from '@/server/services/teams';
-
-const teamParams = z.object({ teamId: z.string().min(1).max(100) });
 
 export function teamsRouter({ db }: { db: Database }): Router {
   const router = Router();
