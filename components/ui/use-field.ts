@@ -1,5 +1,9 @@
 import { useCallback, useState } from 'react';
 
+import { isApiError } from '@/components/data/api-error';
+
+import { messageFor } from './message-for';
+
 type Schema = {
   safeParse(
     value: unknown,
@@ -45,4 +49,25 @@ export function useField(schema: Schema, initial = '') {
   }, []);
 
   return { value, setValue, error: localError ?? serverError, validate, reset, setServerError };
+}
+
+type FormField = Pick<ReturnType<typeof useField>, 'setServerError'>;
+
+/**
+ * The one way a form shows a failed submit: each message the server addressed to one of
+ * `fields` (in `fieldErrors`, or by `field`) shows at that field. Answers the line for the
+ * whole form when the failure named none of them, else null.
+ */
+export function showFieldErrors(error: unknown, fields: Record<string, FormField>): string | null {
+  let atAField = false;
+  if (isApiError(error)) {
+    for (const [key, field] of Object.entries(fields)) {
+      const message = error.fieldError(key);
+      if (message) {
+        field.setServerError(message);
+        atAField = true;
+      }
+    }
+  }
+  return atAField ? null : messageFor(error);
 }

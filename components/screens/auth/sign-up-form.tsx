@@ -5,13 +5,11 @@ import { StyleSheet, View, type TextInput } from 'react-native';
 import { authCall, credentialField } from '@/components/auth/auth-call';
 import { authClient } from '@/components/auth/auth-client';
 import { emailField, passwordField, personName } from '@/components/auth/credentials';
-import { isApiError } from '@/components/data/api-error';
 import { Button } from '@/components/ui/button';
 import { emailInput, Field, FormError } from '@/components/ui/field';
-import { messageFor } from '@/components/ui/message-for';
 import { Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
-import { useField } from '@/components/ui/use-field';
+import { showFieldErrors, useField } from '@/components/ui/use-field';
 
 /** Name, e-mail, password (at least 10 characters), each checked as you type. */
 export function SignUpForm({
@@ -47,11 +45,7 @@ export function SignUpForm({
       qc.clear();
       await onSignedUp();
     } catch (e) {
-      const field = isApiError(e) ? e.field : undefined;
-      if (field === 'email') email.setServerError(messageFor(e));
-      else if (field === 'password') password.setServerError(messageFor(e));
-      else if (field === 'name') name.setServerError(messageFor(e));
-      else setError(messageFor(e));
+      setError(showFieldErrors(e, { name, email, password }));
     } finally {
       setBusy(false);
     }

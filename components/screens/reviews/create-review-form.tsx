@@ -1,15 +1,14 @@
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { isApiError } from '@/components/data/api-error';
 import { useCreateReviewMutation } from '@/components/data/reviews';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Field, FormError } from '@/components/ui/field';
 import { useMessage } from '@/components/ui/message';
-import { messageFor } from '@/components/ui/message-for';
 import { Heading, Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
-import { useField } from '@/components/ui/use-field';
+import { showFieldErrors, useField } from '@/components/ui/use-field';
 import { createReviewInput } from '@/server/contracts/review';
 
 /** Name and summary, checked with the server's own schema as you type; a taken name shows at the name. */
@@ -18,10 +17,12 @@ export function CreateReviewForm({ teamId, onDone }: { teamId: string; onDone: (
   const summary = useField(createReviewInput.shape.summary);
   const create = useCreateReviewMutation(teamId);
   const message = useMessage();
+  const [formError, setFormError] = useState<string | null>(null);
 
   const submit = () => {
     const ok = [name.validate(), summary.validate()].every(Boolean);
     if (!ok) return;
+    setFormError(null);
     create.mutate(
       { name: name.value.trim(), summary: summary.value.trim() },
       {
@@ -31,21 +32,10 @@ export function CreateReviewForm({ teamId, onDone }: { teamId: string; onDone: (
           summary.reset();
           onDone();
         },
-        onError: (error) => {
-          if (!isApiError(error)) return;
-          const nameError = error.fieldError('name') ?? (error.code === 'conflict' ? error.message : undefined);
-          if (nameError) name.setServerError(nameError);
-          const summaryError = error.fieldError('summary');
-          if (summaryError) summary.setServerError(summaryError);
-        },
+        onError: (error) => setFormError(showFieldErrors(error, { name, summary })),
       },
     );
   };
-
-  const handled =
-    isApiError(create.error) &&
-    (create.error.fieldError('name') || create.error.fieldError('summary') || create.error.code === 'conflict');
-  const formError = create.error && !handled ? messageFor(create.error) : null;
 
   return (
     <Card style={styles.card} testID="create-review-form">

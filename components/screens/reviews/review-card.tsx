@@ -1,7 +1,6 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { isApiError } from '@/components/data/api-error';
 import { useUpdateReviewMutation } from '@/components/data/reviews';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
@@ -13,7 +12,7 @@ import { PressableLink } from '@/components/ui/pressable-link';
 import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { space } from '@/components/ui/tokens';
-import { useField } from '@/components/ui/use-field';
+import { showFieldErrors, useField } from '@/components/ui/use-field';
 import { reviewName, type Review } from '@/server/contracts/review';
 
 /** One Review in the list: opens on press; rename inline and archive / restore for Owner and Lead. */
@@ -36,11 +35,7 @@ export function ReviewCard({ review, canEdit, canArchive }: { review: Review; ca
       {
         onSuccess: () => setRenaming(false),
         onError: (error) => {
-          const fieldMessage = isApiError(error)
-            ? (error.fieldError('name') ?? (error.code === 'conflict' ? error.message : undefined))
-            : undefined;
-          if (fieldMessage) name.setServerError(fieldMessage);
-          else message.showError(error);
+          if (showFieldErrors(error, { name }) !== null) message.showError(error);
         },
       },
     );

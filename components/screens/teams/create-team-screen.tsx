@@ -1,17 +1,16 @@
 import { useRouter } from 'expo-router';
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { isApiError } from '@/components/data/api-error';
 import { useCreateTeamMutation } from '@/components/data/teams';
 import { useCurrentTeam } from '@/components/state/current-team';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Field, FormError } from '@/components/ui/field';
-import { messageFor } from '@/components/ui/message-for';
 import { Screen } from '@/components/ui/screen';
 import { Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
-import { useField } from '@/components/ui/use-field';
+import { showFieldErrors, useField } from '@/components/ui/use-field';
 import { teamName } from '@/server/contracts/team';
 
 /** Start a Team; its creator becomes the Owner. `first` when the user has none yet. */
@@ -20,9 +19,11 @@ export function CreateTeamScreen({ first = false }: { first?: boolean }) {
   const { selectTeam } = useCurrentTeam();
   const name = useField(teamName);
   const create = useCreateTeamMutation();
+  const [formError, setFormError] = useState<string | null>(null);
 
   const submit = () => {
     if (!name.validate()) return;
+    setFormError(null);
     create.mutate(
       { name: name.value },
       {
@@ -30,14 +31,10 @@ export function CreateTeamScreen({ first = false }: { first?: boolean }) {
           selectTeam(team.id);
           router.replace('/');
         },
-        onError: (error) => {
-          if (isApiError(error) && error.field === 'name') name.setServerError(error.message);
-        },
+        onError: (error) => setFormError(showFieldErrors(error, { name })),
       },
     );
   };
-  const formError =
-    create.error && !(isApiError(create.error) && create.error.field === 'name') ? messageFor(create.error) : null;
 
   return (
     <Screen

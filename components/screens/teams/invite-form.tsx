@@ -1,16 +1,14 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { isApiError } from '@/components/data/api-error';
 import { useInviteMemberMutation } from '@/components/data/teams';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Choice, Field, FormError } from '@/components/ui/field';
 import { useMessage } from '@/components/ui/message';
-import { messageFor } from '@/components/ui/message-for';
 import { Heading, Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
-import { useField } from '@/components/ui/use-field';
+import { showFieldErrors, useField } from '@/components/ui/use-field';
 import { roleLabels, teamRoles, type TeamRole } from '@/server/contracts/roles';
 import { inviteInput } from '@/server/contracts/team';
 
@@ -30,10 +28,12 @@ export function InviteForm({ teamId }: { teamId: string }) {
   const [role, setRole] = useState<TeamRole>('engineer');
   const invite = useInviteMemberMutation(teamId);
   const message = useMessage();
+  const [formError, setFormError] = useState<string | null>(null);
 
   const submit = () => {
     if (!email.validate()) return;
     const address = email.value.trim().toLowerCase();
+    setFormError(null);
     invite.mutate(
       { email: address, role },
       {
@@ -41,14 +41,10 @@ export function InviteForm({ teamId }: { teamId: string }) {
           message.show(`Invitation sent to ${address} as ${roleLabels[role]}.`);
           email.reset();
         },
-        onError: (error) => {
-          if (isApiError(error) && error.field === 'email') email.setServerError(error.message);
-        },
+        onError: (error) => setFormError(showFieldErrors(error, { email })),
       },
     );
   };
-  const formError =
-    invite.error && !(isApiError(invite.error) && invite.error.field === 'email') ? messageFor(invite.error) : null;
 
   return (
     <Card style={styles.card} testID="invite-form">
