@@ -21,24 +21,24 @@ const columns = {
   createdByName: user.name,
 };
 
-type Row = { [K in keyof typeof columns]: (typeof columns)[K]['_']['data'] | null };
+function selectReviews(db: Database) {
+  return db.select(columns).from(review).leftJoin(user, eq(user.id, review.createdById));
+}
+
+type Row = Awaited<ReturnType<typeof selectReviews>>[number];
 
 function toReview(r: Row): Review {
   return {
-    id: r.id!,
-    teamId: r.teamId!,
-    name: r.name!,
-    summary: r.summary ?? '',
-    status: r.status!,
-    createdAt: r.createdAt!.toISOString(),
-    updatedAt: r.updatedAt!.toISOString(),
+    id: r.id,
+    teamId: r.teamId,
+    name: r.name,
+    summary: r.summary,
+    status: r.status,
+    createdAt: r.createdAt.toISOString(),
+    updatedAt: r.updatedAt.toISOString(),
     archivedAt: r.archivedAt ? r.archivedAt.toISOString() : null,
     createdBy: r.createdById ? { id: r.createdById, name: r.createdByName ?? '' } : null,
   };
-}
-
-function selectReviews(db: Database) {
-  return db.select(columns).from(review).leftJoin(user, eq(user.id, review.createdById));
 }
 
 export async function getReview(db: Database, reviewId: string): Promise<Review> {
