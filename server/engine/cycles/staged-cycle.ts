@@ -15,7 +15,7 @@ import {
   type Polynomial,
 } from '../properties/property-polynomial';
 import { resolveInput, type ResolvedInput } from './resolve-input';
-import { changingCompositionPath, isobarPath, polytropicPath } from './t-s-paths';
+import { isobarPath, polytropicPath } from './t-s-paths';
 import { freshTrainPass, regeneratorDuty, runTrain, type TrainPass, type TrainSetup } from './turbine-train';
 import type {
   CycleInput,
@@ -542,22 +542,27 @@ function buildPaths(records: StateRecord[], pointsPerProcess: number): ProcessPa
     const a = records[i - 1];
     const b = records[i];
     const kind = b.process!;
-    if (kind === 'compression' || kind === 'expansion') {
-      paths.push(polytropicPath(b.gas, a.state, b.state, points, kind, i, i + 1));
-    } else if (b.burnt) {
-      paths.push(changingCompositionPath(b.gas, a.state, b.state, points, kind, i, i + 1));
-    } else {
-      paths.push(isobarPath(b.gas, a.state, b.state, points, kind, i, i + 1));
-    }
+    paths.push(
+      kind === 'compression' || kind === 'expansion'
+        ? polytropicPath(b.gas, a.state, b.state, points, kind, i, i + 1)
+        : isobarPath(b.gas, a.state, b.state, points, kind, i, i + 1, b.burnt),
+    );
   }
   // The exhaust returns to the ambient state outside the plant: heat rejection at ambient pressure.
   const exhaust = records[records.length - 1];
   const first = records[0];
-  const closing =
-    exhaust.gas === first.gas
-      ? isobarPath(first.gas, exhaust.state, first.state, points, 'heat-rejection', records.length, 1)
-      : changingCompositionPath(first.gas, exhaust.state, first.state, points, 'heat-rejection', records.length, 1);
-  paths.push(closing);
+  paths.push(
+    isobarPath(
+      first.gas,
+      exhaust.state,
+      first.state,
+      points,
+      'heat-rejection',
+      records.length,
+      1,
+      exhaust.gas !== first.gas,
+    ),
+  );
   return paths;
 }
 

@@ -43,47 +43,14 @@ export function polytropicPath(
 }
 
 /**
- * Path of heating or cooling of one gas: its isobar, with the pressure falling linearly
- * with temperature from inlet to outlet where the part has a pressure loss.
+ * Path of heating or cooling: the isobar of the outlet gas, with the pressure falling
+ * linearly with temperature from inlet to outlet where the part has a pressure loss.
+ * Where the composition changes on the way (a burner, or the exhaust returning to the
+ * ambient air), the isobar is shifted at the start by the entropy the composition change
+ * carries, easing that shift to zero at the outlet: a drawing aid. Both ends are the exact
+ * states.
  */
 export function isobarPath(
-  gas: GasModel,
-  a: FlowState,
-  b: FlowState,
-  points: number,
-  kind: PathKind,
-  from: number,
-  to: number,
-): ProcessPath {
-  const temperatureK: number[] = new Array(points);
-  const entropyKJPerKgK: number[] = new Array(points);
-  const last = points - 1;
-  // s = s°(T) − R ln(p/p0) with p linear in the fraction: where the part has no loss the
-  // pressure term is one constant, which saves a logarithm per point.
-  const lossless = withoutLoss(a, b);
-  const p = gas.polynomial;
-  const r = gas.gasConstantKJPerKgK;
-  const pressureTerm = -r * Math.log(a.pressureKPa / P0_KPA);
-  for (let j = 0; j <= last; j++) {
-    const fraction = j / last;
-    const t = a.temperatureK + (b.temperatureK - a.temperatureK) * fraction;
-    temperatureK[j] = t;
-    entropyKJPerKgK[j] = lossless
-      ? entropyOf(p, t) + pressureTerm
-      : entropyOf(p, t) - r * Math.log((a.pressureKPa + (b.pressureKPa - a.pressureKPa) * fraction) / P0_KPA);
-  }
-  entropyKJPerKgK[0] = a.entropyKJPerKgK;
-  entropyKJPerKgK[last] = b.entropyKJPerKgK;
-  return { kind, from, to, temperatureK, entropyKJPerKgK };
-}
-
-/**
- * Path of heating or cooling across which the composition changes (a burner, or the
- * exhaust returning to the ambient air): the isobar of the outlet gas, shifted at the
- * start by the entropy the composition change carries and easing that shift to zero at
- * the outlet. A drawing aid: both ends are the exact states.
- */
-export function changingCompositionPath(
   outletGas: GasModel,
   a: FlowState,
   b: FlowState,
@@ -91,15 +58,17 @@ export function changingCompositionPath(
   kind: PathKind,
   from: number,
   to: number,
+  compositionChanges: boolean,
 ): ProcessPath {
   const temperatureK: number[] = new Array(points);
   const entropyKJPerKgK: number[] = new Array(points);
   const poly = outletGas.polynomial;
   const r = outletGas.gasConstantKJPerKgK;
   const pressureTerm = -r * Math.log(a.pressureKPa / P0_KPA);
-  const shift = a.entropyKJPerKgK - (entropyOf(poly, a.temperatureK) + pressureTerm);
-  // As on an isobar, a constant pressure term where the pressure does not change (the exhaust
-  // returning to the ambient state).
+  // For one gas the inlet lies on the isobar already: no shift, and no s° evaluation for it.
+  const shift = compositionChanges ? a.entropyKJPerKgK - (entropyOf(poly, a.temperatureK) + pressureTerm) : 0;
+  // s = s°(T) − R ln(p/p0) with p linear in the fraction: where the part keeps its pressure
+  // the pressure term is one constant, which saves a logarithm per point.
   const lossless = withoutLoss(a, b);
   const last = points - 1;
   for (let j = 0; j <= last; j++) {
