@@ -7,7 +7,6 @@ import { ConstantCpAir } from '../properties/constant-cp-air';
 import type { GasModel } from '../properties/gas-model';
 import { humidAir } from '../properties/humid-air';
 import { IdealGasMixture } from '../properties/ideal-gas-mixture';
-import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K } from '../properties/nasa-species';
 import {
   enthalpyOf,
   enthalpyWithLog,
@@ -16,7 +15,14 @@ import {
 } from '../properties/property-polynomial';
 import { resolveInput, type ResolvedInput } from './resolve-input';
 import { isobarPath, polytropicPath } from './t-s-paths';
-import { freshTrainPass, regeneratorDuty, runTrain, type TrainPass, type TrainSetup } from './turbine-train';
+import {
+  checkStageExit,
+  freshTrainPass,
+  regeneratorDuty,
+  runTrain,
+  type TrainPass,
+  type TrainSetup,
+} from './turbine-train';
 import type {
   CycleInput,
   CycleResult,
@@ -30,9 +36,6 @@ import type {
 /** Above this burner exit temperature the products dissociate noticeably, which complete combustion ignores (common practice). */
 const DISSOCIATION_WARNING_K = 2200;
 const DEFAULT_POINTS_PER_PROCESS = 16;
-// Local copies: an imported binding is a getter once transpiled, and these are read per stage.
-const POLYNOMIAL_MIN_K = DATA_MIN_K;
-const POLYNOMIAL_MAX_K = DATA_MAX_K;
 
 /** One state in flow order, with the gas there and how the flow got to it. */
 interface StateRecord {
@@ -89,15 +92,6 @@ function fuelFor(hydrogenVolumeFraction: number): Fuel {
   if (cachedFuel && cachedFuel.hydrogenVolumeFraction === hydrogenVolumeFraction) return cachedFuel;
   cachedFuel = makeFuel(hydrogenVolumeFraction);
   return cachedFuel;
-}
-
-function checkTemperature(temperatureK: number, field: string, what: string): void {
-  if (!(temperatureK >= POLYNOMIAL_MIN_K && temperatureK <= POLYNOMIAL_MAX_K)) {
-    throw new EngineInputError(
-      field,
-      `${what} would be ${Number.isFinite(temperatureK) ? temperatureK.toFixed(1) + ' K' : 'undefined'}, outside the range of the property data (${POLYNOMIAL_MIN_K}–${POLYNOMIAL_MAX_K} K).`,
-    );
-  }
 }
 
 function numbered(label: string, i: number, count: number): string {
@@ -313,13 +307,6 @@ function hotRecords(
   return turbineWorkKJ;
 }
 
-function checkStageTemperature(temperatureK: number, part: 'compressor' | 'turbine', stage: number): void {
-  // The message is built only on failure: this runs for every stage of every pass.
-  if (!(temperatureK >= POLYNOMIAL_MIN_K && temperatureK <= POLYNOMIAL_MAX_K)) {
-    checkTemperature(temperatureK, 'compressor.pressureRatio', `The ${part} ${stage} exit temperature`);
-  }
-}
-
 /**
  * Evaluates the general staged cycle (see README): N-stage intercooled compression,
  * optional regenerator, combustor, M-stage expansion with reheat, exhaust to ambient.
@@ -349,7 +336,7 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
   const seed = newStageSeed();
   for (let i = 1; i <= n; i++) {
     const exit = compress(airGas, current, stageRatio, r.compressorEfficiency, seed);
-    checkStageTemperature(exit.temperatureK, 'compressor', i);
+    checkStageExit(exit.temperatureK, 'compressor', i);
     compressorWorkKJ += exit.enthalpyKJPerKg - current.enthalpyKJPerKg;
     records.push({
       label: compressorLabels[i],

@@ -202,7 +202,7 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
     exitRatio = exitK / t;
     pass.previousIsentropicK[j] = lastIsentropicK;
     pass.previousExitK[j] = lastExitK;
-    checkExit(exitK, j);
+    checkStageExit(exitK, 'turbine', j);
     pass.isentropicK[j] = isentropicK;
     record(pass, k, exitK, exitEnthalpy, fuelKg);
     h = exitEnthalpy;
@@ -279,12 +279,16 @@ function burntToReach(
   return fuelKg;
 }
 
-function checkExit(temperatureK: number, stage: number): void {
+/**
+ * Refuses a stage exit (compressor or turbine) outside the range of the property data; the
+ * pressure ratio is what drives it there.
+ */
+export function checkStageExit(temperatureK: number, part: 'compressor' | 'turbine', stage: number): void {
   // The message is built only on failure: this runs for every stage of every pass.
   if (!(temperatureK >= MIN_K && temperatureK <= MAX_K)) {
     throw new EngineInputError(
       'compressor.pressureRatio',
-      `The turbine ${stage} exit temperature would be ${Number.isFinite(temperatureK) ? temperatureK.toFixed(1) + ' K' : 'undefined'}, outside the range of the property data (${MIN_K}–${MAX_K} K).`,
+      `The ${part} ${stage} exit temperature would be ${Number.isFinite(temperatureK) ? temperatureK.toFixed(1) + ' K' : 'undefined'}, outside the range of the property data (${MIN_K}–${MAX_K} K).`,
     );
   }
 }
