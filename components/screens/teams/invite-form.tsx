@@ -4,7 +4,7 @@ import { StyleSheet, View } from 'react-native';
 import { useInviteMemberMutation } from '@/components/data/teams';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Choice, Field, FormError } from '@/components/ui/field';
+import { Choice, emailInput, Field, FormError } from '@/components/ui/field';
 import { useMessage } from '@/components/ui/message';
 import { Heading, Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
@@ -55,10 +55,9 @@ export function InviteForm({ teamId }: { teamId: string }) {
         value={email.value}
         onChangeText={email.setValue}
         error={email.error}
-        keyboardType="email-address"
-        autoCapitalize="none"
+        {...emailInput}
+        // Someone else's address: the browser must not offer the user's own.
         autoComplete="off"
-        inputMode="email"
         onSubmitEditing={submit}
         testID="invite-email-input"
       />
