@@ -8,7 +8,7 @@ import { useAcceptInvitationMutation, useInvitationQuery, type InvitationSummary
 import { rememberTeam } from '@/components/state/current-team';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
-import { Choice } from '@/components/ui/field';
+import { Choice, FormError } from '@/components/ui/field';
 import { formatDate } from '@/components/ui/format';
 import { messageFor } from '@/components/ui/message-for';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
@@ -121,11 +121,9 @@ function InvitationAction({ inv, signedInEmail }: { inv: InvitationSummary; sign
     if (userId && teamId) rememberTeam(userId, teamId);
     router.replace('/');
   };
-  const acceptError = accept.error ? (
-    <Text size="small" tone="danger" role="alert" testID="invitation-accept-error">
-      {messageFor(accept.error)}
-    </Text>
-  ) : null;
+  const acceptError = (
+    <FormError message={accept.error ? messageFor(accept.error) : null} testID="invitation-accept-error" />
+  );
 
   if (signedInEmail && signedInEmail.toLowerCase() === inv.email.toLowerCase()) {
     return (
