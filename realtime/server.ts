@@ -2,7 +2,8 @@ import type { Server as HttpServer } from 'node:http';
 
 import { fromNodeHeaders } from 'better-auth/node';
 import { eq } from 'drizzle-orm';
-import { Server, type Socket } from 'socket.io';
+import { Server } from 'socket.io';
+import type { z } from 'zod';
 
 import type { Database } from '@/db/client';
 import { member } from '@/db/schema';
@@ -29,15 +30,7 @@ function failure(error: unknown) {
 }
 
 /** Wraps a handler: validates the payload, checks access, answers the ack with ok or an error. */
-function handle<P>(
-  socket: Socket,
-  schema: {
-    safeParse(
-      v: unknown,
-    ): { success: true; data: P } | { success: false; error: { issues: Array<{ message: string }> } };
-  },
-  run: (payload: P) => Promise<void>,
-) {
+function handle<P>(schema: z.ZodType<P>, run: (payload: P) => Promise<void>) {
   return async (raw: unknown, ack?: Ack) => {
     const reply: Ack = typeof ack === 'function' ? ack : () => {};
     const parsed = schema.safeParse(raw);
@@ -79,14 +72,14 @@ export function attachRealtime(
   io.on('connection', (socket) => {
     socket.on(
       'team:join',
-      handle(socket, teamRoomPayload, async ({ teamId }) => {
+      handle(teamRoomPayload, async ({ teamId }) => {
         await requireTeam(db, socket.data.user.id, teamId);
         await socket.join(teamRoom(teamId));
       }),
     );
     socket.on(
       'team:leave',
-      handle(socket, teamRoomPayload, async ({ teamId }) => {
+      handle(teamRoomPayload, async ({ teamId }) => {
         await socket.leave(teamRoom(teamId));
       }),
     );
