@@ -88,7 +88,8 @@ function stageCount(given: unknown, field: string, what: string): number {
   return value;
 }
 
-export function temperatureInRange(value: number, field: string, what: string): number {
+function temperature(given: unknown, field: string, what: string, fallback?: number): number {
+  const value = finite(given, field, fallback);
   if (!(value >= POLYNOMIAL_MIN_K && value <= POLYNOMIAL_MAX_K)) {
     throw new EngineInputError(
       field,
@@ -114,11 +115,7 @@ export function resolveInput(input: CycleInput): ResolvedInput {
   if (!isRecord(root)) throw new EngineInputError('(body)', 'The cycle input must be an object.');
 
   const ambient = section(root.ambient, 'ambient');
-  const ambientTemperatureK = temperatureInRange(
-    finite(ambient.temperatureK, 'ambient.temperatureK'),
-    'ambient.temperatureK',
-    'The ambient temperature',
-  );
+  const ambientTemperatureK = temperature(ambient.temperatureK, 'ambient.temperatureK', 'The ambient temperature');
   const hasPressure = ambient.pressureKPa !== undefined && ambient.pressureKPa !== null;
   const hasElevation = ambient.elevationM !== undefined && ambient.elevationM !== null;
   if (hasPressure && hasElevation) {
@@ -164,11 +161,7 @@ export function resolveInput(input: CycleInput): ResolvedInput {
         'fuel.hydrogenVolumeFraction',
         'The hydrogen volume fraction',
       ),
-      temperatureK: temperatureInRange(
-        finite(f.temperatureK, 'fuel.temperatureK'),
-        'fuel.temperatureK',
-        'The fuel temperature',
-      ),
+      temperatureK: temperature(f.temperatureK, 'fuel.temperatureK', 'The fuel temperature'),
     };
   } else if (fluid === 'combustion') {
     throw new EngineInputError('fuel', 'The combustion working fluid needs a fuel.');
@@ -185,10 +178,11 @@ export function resolveInput(input: CycleInput): ResolvedInput {
     'compressor.isentropicEfficiency',
     'The compressor isentropic efficiency',
   );
-  const intercoolTemperatureK = temperatureInRange(
-    finite(compressor.intercoolTemperatureK, 'compressor.intercoolTemperatureK', ambientTemperatureK),
+  const intercoolTemperatureK = temperature(
+    compressor.intercoolTemperatureK,
     'compressor.intercoolTemperatureK',
     'The intercooling temperature',
+    ambientTemperatureK,
   );
   const intercoolerPressureLoss = pressureLoss(
     compressor.intercoolerPressureLoss,
@@ -223,8 +217,8 @@ export function resolveInput(input: CycleInput): ResolvedInput {
 
   const turbine = section(root.turbine, 'turbine');
   const turbineStages = stageCount(turbine.stages, 'turbine.stages', 'The number of turbine stages');
-  const turbineInletTemperatureK = temperatureInRange(
-    finite(turbine.inletTemperatureK, 'turbine.inletTemperatureK'),
+  const turbineInletTemperatureK = temperature(
+    turbine.inletTemperatureK,
     'turbine.inletTemperatureK',
     'The turbine inlet temperature',
   );
@@ -233,10 +227,11 @@ export function resolveInput(input: CycleInput): ResolvedInput {
     'turbine.isentropicEfficiency',
     'The turbine isentropic efficiency',
   );
-  const reheatTemperatureK = temperatureInRange(
-    finite(turbine.reheatTemperatureK, 'turbine.reheatTemperatureK', turbineInletTemperatureK),
+  const reheatTemperatureK = temperature(
+    turbine.reheatTemperatureK,
     'turbine.reheatTemperatureK',
     'The reheat temperature',
+    turbineInletTemperatureK,
   );
   const reheaterPressureLoss = pressureLoss(
     turbine.reheaterPressureLoss,
