@@ -38,7 +38,6 @@ describe.each([
   const states = result.states;
   const air = makeStream(
     humidAir(ISO_AMBIENT.temperatureK, ISO_AMBIENT.pressureKPa, ISO_AMBIENT.relativeHumidity).amountsPerKg,
-    0,
   );
   const fuel = makeFuel(input.fuel!.hydrogenVolumeFraction);
   const fuelK = input.fuel!.temperatureK;
@@ -90,10 +89,7 @@ describe.each([
     const hotOut = byLabel(result, 'regenerator hot out');
     const hotIn = states[states.indexOf(hotOut) - 1];
     // The exhaust gas: the products of all the fuel burnt, in the inlet air.
-    const exhaust = makeStream(
-      Array.from(air.amounts, (n, i) => n + result.fuelAirRatio! * fuel.changePerKg[i]),
-      result.fuelAirRatio!,
-    );
+    const exhaust = makeStream(Array.from(air.amounts, (n, i) => n + result.fuelAirRatio! * fuel.changePerKg[i]));
     const expected = regenerate(
       {
         coldGas: air.gas,

@@ -76,7 +76,7 @@ function inletAir(r: ResolvedInput): InletAir {
   if (cachedAir && cachedAir.temperatureK === t && cachedAir.pressureKPa === p && cachedAir.relativeHumidity === rh)
     return cachedAir;
   const humid = humidAir(t, p, rh);
-  const stream = makeStream(humid.amountsPerKg, 0);
+  const stream = makeStream(humid.amountsPerKg);
   cachedAir = {
     temperatureK: t,
     pressureKPa: p,

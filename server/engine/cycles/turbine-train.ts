@@ -259,7 +259,7 @@ function record(pass: TrainPass, k: number, temperatureK: number, enthalpy: numb
 /**
  * Total fuel burnt after a burner that must raise the gas's enthalpy by `rise` (kJ per kg
  * of air, positive) when each kg of fuel releases `release`: the products are linear in the
- * fuel (see burnForRise in processes/combustion.ts), so fuel = rise / release, no iteration.
+ * fuel (see burnToTemperature in processes/combustion.ts), so fuel = rise / release, no iteration.
  */
 function burntToReach(
   s: TrainSetup,

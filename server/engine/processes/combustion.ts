@@ -81,19 +81,17 @@ export interface GasStream {
   readonly amounts: ArrayLike<number>;
   /** kg of gas per kg of compressor inlet air. */
   readonly mass: number;
-  /** kg of fuel already burnt in it per kg of compressor inlet air. */
-  readonly fuelBurnt: number;
   /** The stream's properties per kg of gas. */
   readonly gas: IdealGasMixture;
   /** Extensive polynomial of the stream: Σ nᵢ hᵢ in kJ per kg of inlet air. */
   readonly coefficients: ArrayLike<number>;
 }
 
-/** A stream from its amounts (kmol per kg of inlet air); `fuelBurnt` in kg per kg of inlet air. */
-export function makeStream(amounts: ArrayLike<number>, fuelBurnt: number): GasStream {
+/** A stream from its amounts, kmol per kg of inlet air. */
+export function makeStream(amounts: ArrayLike<number>): GasStream {
   const mass = massOfAmounts(amounts);
   const coefficients = extensiveCoefficients(amounts);
-  return { amounts, mass, fuelBurnt, gas: new IdealGasMixture(amounts, coefficients, mass), coefficients };
+  return { amounts, mass, gas: new IdealGasMixture(amounts, coefficients, mass), coefficients };
 }
 
 export type BurnOutcome =
@@ -101,13 +99,14 @@ export type BurnOutcome =
   | { readonly ok: false; readonly reason: 'not-above-inlet' | 'too-much-fuel'; readonly fuelKg: number };
 
 /**
- * Burns fuel in a stream until it leaves at `outletK`, adiabatically. The products are
+ * Burns fuel in a stream until it leaves at `outletK`, adiabatically: the plain form of a
+ * burner, which the turbine train computes on its polynomials instead. The products are
  * linear in the fuel burnt, so the absolute-enthalpy balance
  *   H_s(T_in) + m_f h_f(T_f) = H_s(T_out) + m_f Σ νᵢ hᵢ(T_out)
  * gives the fuel mass directly, with no iteration:
  *   m_f = [H_s(T_out) − H_s(T_in)] / [h_f(T_f) − Σ νᵢ hᵢ(T_out)]   (kg per kg of inlet air),
- * and the products' amounts and polynomial are those of the stream plus m_f times the
- * fuel's change. Fails (no number) if the outlet is not above the inlet or the oxygen runs out.
+ * and the products are the stream's amounts plus m_f times the fuel's change. Fails (no
+ * number) if the outlet is not above the inlet or the oxygen runs out.
  */
 export function burnToTemperature(
   stream: GasStream,
@@ -119,7 +118,12 @@ export function burnToTemperature(
   if (!(outletK > inletK)) return { ok: false, reason: 'not-above-inlet', fuelKg: 0 };
   const rise =
     enthalpyOfCoefficients(stream.coefficients, outletK) - enthalpyOfCoefficients(stream.coefficients, inletK);
-  return burnForRise(stream, rise, fuelRelease(fuel, fuelK, outletK), fuel);
+  const release = fuelRelease(fuel, fuelK, outletK);
+  const fuelKg = rise / release;
+  const change = fuel.changePerKg;
+  const amounts = Array.from(stream.amounts, (n, i) => n + fuelKg * change[i]);
+  if (!(release > 0) || !(amounts[O2] >= 0)) return { ok: false, reason: 'too-much-fuel', fuelKg };
+  return { ok: true, fuelKg, products: makeStream(amounts) };
 }
 
 /**
@@ -135,64 +139,15 @@ export function fuelEnthalpyAt(fuel: Fuel, fuelK: number): number {
   return enthalpyOfCoefficients(fuel.fuelCoefficients, fuelK);
 }
 
-/**
- * burnToTemperature with the two enthalpy terms already known: `riseKJ` = H_s(T_out) −
- * H_s(T_in) of the stream (kJ per kg of inlet air, positive) and `releaseKJ` =
- * fuelRelease(…). The cycle knows both, and the burner outlet temperatures are fixed, so
- * this saves the polynomial evaluations (each with a logarithm) on every pass of the
- * regenerator loop. The caller checks that the outlet is above the inlet.
- */
-export function burnForRise(stream: GasStream, riseKJ: number, releaseKJ: number, fuel: Fuel): BurnOutcome {
-  const rise = riseKJ;
-  const release = releaseKJ;
-  const fuelKg = rise / release;
-  const change = fuel.changePerKg;
-  if (!(release > 0) || !(stream.amounts[O2] + fuelKg * change[O2] >= 0)) {
-    return { ok: false, reason: 'too-much-fuel', fuelKg };
-  }
-  return { ok: true, fuelKg, products: burnFuel(stream, fuelKg, fuel) };
-}
-
-/**
- * The products of burning `fuelKg` (kg per kg of inlet air) of the fuel completely in the
- * stream: its amounts and polynomial plus fuelKg times the fuel's change. The caller checks
- * that the oxygen suffices.
- */
-export function burnFuel(stream: GasStream, fuelKg: number, fuel: Fuel): GasStream {
-  const change = fuel.changePerKg;
-  // Plain array literals: the cheapest allocation for these small vectors.
-  const n = stream.amounts;
-  const amounts = [
-    n[0] + fuelKg * change[0],
-    Math.max(0, n[1] + fuelKg * change[1]), // rounding can leave −1e-20 of O2 at stoichiometric burning
-    n[2] + fuelKg * change[2],
-    n[3] + fuelKg * change[3],
-    n[4] + fuelKg * change[4],
-    n[5] + fuelKg * change[5],
-    n[6] + fuelKg * change[6],
-  ];
-  const c = stream.coefficients;
-  const d = fuel.changeCoefficients;
-  const coefficients: number[] = new Array(LENGTH);
-  for (let k = 0; k < LENGTH; k++) coefficients[k] = c[k] + fuelKg * d[k];
-  const mass = stream.mass + fuelKg;
-  return {
-    amounts,
-    mass,
-    fuelBurnt: stream.fuelBurnt + fuelKg,
-    gas: new IdealGasMixture(amounts, coefficients, mass),
-    coefficients,
-  };
-}
-
 // Scratch vectors of burnFuelInto: the mixture copies what it keeps, so they are free again on return.
 const SCRATCH_AMOUNTS: number[] = [0.5, 0.5, 0.5, 0.5, 0.5, 0.5, 0.5];
 const SCRATCH_COEFFICIENTS: number[] = new Array<number>(EXTENSIVE_LENGTH).fill(0.5);
 
 /**
- * burnFuel into an existing mixture (IdealGasMixture.setComposition), allocating nothing:
- * the products of burning `fuelKg` of the fuel in the stream. Returns their mass, kg per kg
- * of inlet air. The caller checks that the oxygen suffices.
+ * The products of burning `fuelKg` (kg per kg of inlet air) of the fuel completely in the
+ * stream, written into an existing mixture (IdealGasMixture.setComposition), allocating
+ * nothing: the stream's amounts and polynomial plus fuelKg times the fuel's change. Returns
+ * their mass, kg per kg of inlet air. The caller checks that the oxygen suffices.
  */
 export function burnFuelInto(mixture: IdealGasMixture, stream: GasStream, fuelKg: number, fuel: Fuel): number {
   const change = fuel.changePerKg;
