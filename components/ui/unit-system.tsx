@@ -1,4 +1,4 @@
-import { createContext, useCallback, useContext, useEffect, useMemo, useState, type ReactNode } from 'react';
+import { createContext, useCallback, useContext, useMemo, useState, type ReactNode } from 'react';
 
 import type { UnitSystem } from './format';
 import { readLocal, writeLocal } from './local-store';
@@ -9,12 +9,12 @@ const UnitSystemContext = createContext<UnitSystemApi>({ system: 'si', setSystem
 
 const keyFor = (userId: string) => `cyclemoot.units.${userId}`;
 
-/** SI by default; US customary as a per-user switch, kept on this device for now. */
+/**
+ * SI by default; US customary as a per-user switch, kept on this device for now. The choice
+ * is read once: give the provider `key={userId}` so another user starts from their own.
+ */
 export function UnitSystemProvider({ userId, children }: { userId: string; children: ReactNode }) {
   const [system, setState] = useState<UnitSystem>(() => (readLocal(keyFor(userId)) === 'us' ? 'us' : 'si'));
-  useEffect(() => {
-    setState(readLocal(keyFor(userId)) === 'us' ? 'us' : 'si');
-  }, [userId]);
   const setSystem = useCallback(
     (next: UnitSystem) => {
       writeLocal(keyFor(userId), next);

@@ -49,8 +49,9 @@ export function SignedInGate({ children }: { children: ReactNode }) {
   const { user, teams } = me.data;
   // Without a Team there is nothing to show but the way to start one (and Settings, to sign out).
   const body = teams.length === 0 && !pathname.startsWith('/settings') ? <CreateTeamScreen first /> : children;
+  // Keyed by user: both providers read that user's stored choices afresh.
   return (
-    <UnitSystemProvider userId={user.id}>
+    <UnitSystemProvider key={user.id} userId={user.id}>
       <CurrentTeamProvider userId={user.id} teams={teams}>
         <AppShell userName={user.name}>{body}</AppShell>
       </CurrentTeamProvider>
