@@ -7,12 +7,7 @@ import { ConstantCpAir } from '../properties/constant-cp-air';
 import type { GasModel } from '../properties/gas-model';
 import { humidAir } from '../properties/humid-air';
 import { IdealGasMixture } from '../properties/ideal-gas-mixture';
-import {
-  enthalpyOf,
-  enthalpyWithLog,
-  standardEntropyWithLog,
-  type Polynomial,
-} from '../properties/property-polynomial';
+import { enthalpyOf, enthalpyWithLog, standardEntropyWithLog } from '../properties/property-polynomial';
 import { resolveInput, type ResolvedInput } from './resolve-input';
 import { isobarPath, polytropicPath } from './t-s-paths';
 import {
@@ -58,11 +53,8 @@ interface InletAir {
   readonly temperatureK: number;
   readonly pressureKPa: number;
   readonly relativeHumidity: number;
-  readonly gas: IdealGasMixture;
-  /** The same air as a stream (1 kg per kg of inlet air), for burning fuel in. */
+  /** The air as a stream (1 kg per kg of inlet air), for burning fuel in; its gas is the inlet air's. */
   readonly stream: GasStream;
-  /** Its property polynomial per kg (the gas's own), for the turbine train. */
-  readonly polynomial: Polynomial;
 }
 let cachedAir: InletAir | null = null;
 let cachedFuel: Fuel | null = null;
@@ -75,15 +67,11 @@ function inletAir(r: ResolvedInput): InletAir {
   // Compared as numbers: a string key would cost three number-to-text conversions per evaluation.
   if (cachedAir && cachedAir.temperatureK === t && cachedAir.pressureKPa === p && cachedAir.relativeHumidity === rh)
     return cachedAir;
-  const humid = humidAir(t, p, rh);
-  const stream = makeStream(humid.amountsPerKg);
   cachedAir = {
     temperatureK: t,
     pressureKPa: p,
     relativeHumidity: rh,
-    gas: stream.gas,
-    stream,
-    polynomial: stream.gas.polynomial,
+    stream: makeStream(humidAir(t, p, rh).amountsPerKg),
   };
   return cachedAir;
 }
@@ -175,16 +163,20 @@ function solveTurbineTrain(s: TrainSetup, pass: TrainPass, regenerator: boolean)
   return regenerator ? s.coldInletEnthalpy + regeneratorDuty(s, pass) : s.coldInletEnthalpy;
 }
 
-/** The fixed numbers of the turbine train for one evaluation (see TrainSetup). */
+/**
+ * The fixed numbers of the turbine train for one evaluation (see TrainSetup). `airStream` and
+ * `fuel` are given when the fuel burns in the gas (combustion mode), null otherwise.
+ */
 function trainSetup(
   r: ResolvedInput,
-  air: InletAir | null,
+  airGas: GasModel,
+  airStream: GasStream | null,
   fuel: Fuel | null,
   compressorExit: FlowState,
   expansionRatio: number,
 ): TrainSetup {
-  const polynomial = air ? air.polynomial : CONSTANT_CP_AIR.polynomial;
-  const change = fuel && air ? fuel.changePolynomial : null;
+  const polynomial = airGas.polynomial;
+  const change = fuel && airStream ? fuel.changePolynomial : null;
   const inletK = r.turbineInletTemperatureK;
   const reheatK = r.reheatTemperatureK;
   const coldInletK = compressorExit.temperatureK;
@@ -212,10 +204,10 @@ function trainSetup(
   }
   return {
     air: polynomial,
-    airMoles: 1 / (air ? air.gas.molarMassKgPerKmol : CONSTANT_CP_AIR.molarMassKgPerKmol),
+    airMoles: 1 / airGas.molarMassKgPerKmol,
     change,
     changeMoles: change && fuel ? fuel.changeMolesPerKg : 0,
-    maxFuelKg: change && fuel && air ? air.stream.amounts[OXYGEN] / -fuel.changePerKg[OXYGEN] : 0,
+    maxFuelKg: change && fuel && airStream ? airStream.amounts[OXYGEN] / -fuel.changePerKg[OXYGEN] : 0,
     stages: r.turbineStages,
     inletK,
     reheatK,
@@ -318,8 +310,12 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
   typicalRangeWarnings(r, warnings);
   const combustion = r.fluid === 'combustion';
   const air = r.fluid === 'constant-cp-air' ? null : inletAir(r);
-  const airGas: GasModel = air ? air.gas : CONSTANT_CP_AIR;
+  const airGas: GasModel = air ? air.stream.gas : CONSTANT_CP_AIR;
   const fuel = r.fuel ? fuelFor(r.fuel.hydrogenVolumeFraction) : null;
+  // The air the fuel burns in, and that fuel: in combustion mode only (the air modes use the
+  // fuel for its heating value alone).
+  const burnStream = combustion && air ? air.stream : null;
+  const burnFuel = combustion ? fuel : null;
 
   const records: StateRecord[] = [];
   const inlet = stateAt(airGas, r.ambientTemperatureK, r.ambientPressureKPa);
@@ -388,7 +384,7 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
     );
   }
 
-  const setup = trainSetup(r, air, combustion ? fuel : null, compressorExit, expansionRatio);
+  const setup = trainSetup(r, airGas, burnStream, burnFuel, compressorExit, expansionRatio);
   const pass = freshTrainPass();
   const combustorInletEnthalpy = solveTurbineTrain(setup, pass, regenerator !== null);
   const last = pass.count - 1;
@@ -427,16 +423,7 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
       burnt: false,
     });
   }
-  const turbineWorkKJ = hotRecords(
-    pass,
-    airGas,
-    combustion && air ? air.stream : null,
-    combustion ? fuel : null,
-    turbineInletKPa,
-    expansionRatio,
-    r,
-    records,
-  );
+  const turbineWorkKJ = hotRecords(pass, airGas, burnStream, burnFuel, turbineInletKPa, expansionRatio, r, records);
   if (regenerator) {
     const hotIn = records[records.length - 1];
     records.push({
