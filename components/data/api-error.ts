@@ -70,11 +70,7 @@ export function apiErrorFromAuth(
 }
 
 export function networkError(): ApiError {
-  return new ApiError({
-    status: 0,
-    code: 'network',
-    message: 'Cannot reach the Cyclemoot server. Check your connection and try again.',
-  });
+  return new ApiError({ status: 0, code: 'network', message: defaultMessage(0) });
 }
 
 function sentence(text: string): string {
