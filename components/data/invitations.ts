@@ -38,14 +38,11 @@ export function useAcceptInvitationMutation() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: async ({ invitationId }: { invitationId: string }) => {
-      const result = await authCall(authClient.organization.acceptInvitation({ invitationId }));
-      const teamId = (
-        result as { member?: { organizationId?: string }; invitation?: { organizationId?: string } } | null
-      )?.member?.organizationId;
-      return {
-        teamId:
-          teamId ?? (result as { invitation?: { organizationId?: string } } | null)?.invitation?.organizationId ?? null,
-      };
+      const result = (await authCall(authClient.organization.acceptInvitation({ invitationId }))) as {
+        member?: { organizationId?: string };
+        invitation?: { organizationId?: string };
+      } | null;
+      return { teamId: result?.member?.organizationId ?? result?.invitation?.organizationId ?? null };
     },
     onSuccess: async (_, { invitationId }) => {
       await qc.invalidateQueries({ queryKey: meKeys.all });
