@@ -16,8 +16,8 @@ export const testOrigin = 'http://127.0.0.1:3999';
 export type Sent = { event: string; teamId: string; payload: unknown };
 
 /** `createApp()` on the test database, without listening; broadcasts are recorded. */
-export function createTestApp() {
-  const db = createDatabase(inject('databaseUrl'), 4);
+export function createTestApp(databaseUrl = inject('databaseUrl')) {
+  const db = createDatabase(databaseUrl, 4);
   const mailer = createSmtpMailer({ host: '127.0.0.1', port: inject('smtpPort'), from: 'test@cyclemoot.test' });
   const auth = createAuth({ db, baseURL: testOrigin, secret: testSecret, mailer });
   const sent: Sent[] = [];
@@ -26,15 +26,38 @@ export function createTestApp() {
   return { app, db, auth, sent, close: () => db.$client.end() };
 }
 
-export type TestUser = { agent: ReturnType<typeof supertest.agent>; id: string; email: string; name: string };
+export type TestUser = {
+  agent: ReturnType<typeof supertest.agent>;
+  id: string;
+  email: string;
+  name: string;
+  /** The session cookie, for clients other than the agent (socket.io). */
+  cookie: string;
+};
 
-/** Signs a new user up through the real auth routes; the agent keeps the session cookie. */
-export async function signUp(app: Express, name = 'Test User'): Promise<TestUser> {
-  const email = uniqueEmail(name.split(' ')[0].toLowerCase());
-  const agent = supertest.agent(app).set('Origin', testOrigin);
+/**
+ * Signs a new user up through the real auth routes; the agent keeps the session cookie.
+ * `target` is the app (not listening) or the URL of a running server.
+ */
+export async function signUp(
+  target: Express | string,
+  name = 'Test User',
+  email = uniqueEmail(name.split(' ')[0].toLowerCase()),
+): Promise<TestUser> {
+  const agent = supertest.agent(target).set('Origin', typeof target === 'string' ? target : testOrigin);
   const res = await agent.post('/api/auth/sign-up/email').send({ name, email, password: 'correct-horse-battery' });
   if (res.status !== 200) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
-  return { agent, id: res.body.user.id, email, name };
+  const cookie = (res.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
+  return { agent, id: res.body.user.id, email, name, cookie };
+}
+
+/** A new team of `owner`'s through better-auth (the creator becomes its Owner). */
+export async function startTeam(owner: TestUser, name = 'Test team'): Promise<string> {
+  const res = await owner.agent
+    .post('/api/auth/organization/create')
+    .send({ name, slug: `test-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}` });
+  if (res.status !== 200) throw new Error(`team create failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body.id as string;
 }
 
 /** A team created by `owner` through better-auth, with `others` added in the given roles. */
@@ -43,11 +66,7 @@ export async function createTeam(
   owner: TestUser,
   others: Array<{ user: TestUser; role: string }> = [],
 ) {
-  const res = await owner.agent
-    .post('/api/auth/organization/create')
-    .send({ name: 'Test team', slug: `test-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}` });
-  if (res.status !== 200) throw new Error(`team create failed: ${res.status} ${JSON.stringify(res.body)}`);
-  const teamId = res.body.id as string;
+  const teamId = await startTeam(owner);
   for (const { user, role } of others) {
     await ctx.auth.api.addMember({ body: { userId: user.id, role: role as never, organizationId: teamId } });
   }

@@ -1,24 +1,17 @@
 import { io as connect, type Socket } from 'socket.io-client';
-import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import type { ClientToServerEvents, ServerToClientEvents } from '@/realtime/events';
 
-import { startTestServer, uniqueEmail } from '../helpers/test-server';
+import { signUp as signUpAt, startTeam } from '../helpers/api';
+import { startTestServer } from '../helpers/test-server';
 
 type Client = Socket<ServerToClientEvents, ClientToServerEvents>;
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 const sockets: Client[] = [];
 
-async function signUp(name: string) {
-  const agent = supertest.agent(server.baseURL).set('Origin', server.baseURL);
-  const res = await agent
-    .post('/api/auth/sign-up/email')
-    .send({ name, email: uniqueEmail(name), password: 'correct-horse-battery' });
-  const cookie = (res.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
-  return { agent, cookie, id: res.body.user.id as string, email: res.body.user.email as string };
-}
+const signUp = (name: string) => signUpAt(server.baseURL, name);
 
 function open(cookie?: string): Promise<Client> {
   const socket: Client = connect(server.baseURL, {
@@ -49,10 +42,7 @@ describe('team rooms', () => {
   it('tells every member in the room about a new review, and no outsider', async () => {
     const owner = await signUp('Rita');
     const outsider = await signUp('Uwe');
-    const team = await owner.agent
-      .post('/api/auth/organization/create')
-      .send({ name: 'Room team', slug: `room-${Date.now()}` });
-    const teamId = team.body.id as string;
+    const teamId = await startTeam(owner, 'Room team');
 
     const ownerSocket = await open(owner.cookie);
     const outsiderSocket = await open(outsider.cookie);
@@ -74,10 +64,7 @@ describe('team rooms', () => {
   it('stops telling a member who was removed from the Team', async () => {
     const owner = await signUp('Olav');
     const leaver = await signUp('Lea');
-    const team = await owner.agent
-      .post('/api/auth/organization/create')
-      .send({ name: 'Shrinking team', slug: `shrink-${Date.now()}` });
-    const teamId = team.body.id as string;
+    const teamId = await startTeam(owner, 'Shrinking team');
     const invite = await owner.agent
       .post('/api/auth/organization/invite-member')
       .send({ email: leaver.email, role: 'reviewer', organizationId: teamId });

@@ -67,10 +67,7 @@ describe('sign-up', () => {
   });
 
   it('refuses a cookie-bearing request without a trusted Origin', async () => {
-    const signedUp = await agent()
-      .post('/api/auth/sign-up/email')
-      .send({ name: 'No Origin', email: `no-origin.${Date.now()}@test.example`, password: 'correct-horse-battery' });
-    const cookie = signedUp.headers['set-cookie'] as unknown as string[];
+    const { cookie } = await signUp(ctx.app, 'No Origin');
     expect(cookie.length).toBeGreaterThan(0);
     const res = await supertest(ctx.app)
       .post('/api/auth/sign-out')

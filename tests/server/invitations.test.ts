@@ -1,7 +1,7 @@
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { createTeam, createTestApp, signUp, testOrigin, type TestUser } from '../helpers/api';
+import { createTeam, createTestApp, signUp, type TestUser } from '../helpers/api';
 import { uniqueEmail, waitForMail } from '../helpers/test-server';
 
 const ctx = createTestApp();
@@ -36,11 +36,7 @@ describe('invitations', () => {
     expect(preview.status).toBe(200);
     expect(preview.body).toMatchObject({ email, role: 'engineer', inviterName: 'Ines Owner', status: 'pending' });
 
-    const agent = supertest.agent(ctx.app).set('Origin', testOrigin);
-    await agent
-      .post('/api/auth/sign-up/email')
-      .send({ name: 'New Comer', email, password: 'correct-horse-battery' })
-      .expect(200);
+    const { agent } = await signUp(ctx.app, 'New Comer', email);
     const accepted = await agent.post('/api/auth/organization/accept-invitation').send({ invitationId });
     expect(accepted.status).toBe(200);
 

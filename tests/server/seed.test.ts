@@ -2,26 +2,25 @@ import { eq } from 'drizzle-orm';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
-import { createDatabase, type Database } from '@/db/client';
+import type { Database } from '@/db/client';
 import { member, review } from '@/db/schema';
 import { demoPassword, demoReviews, demoUsers, isEmpty, seedDemo } from '@/db/seed';
-import { createApp } from '@/server/app';
-import { createAuth } from '@/server/auth/auth';
 import { migrateDatabase } from '@/server/ops/migrate';
 import { ensureCluster, ensureDatabase } from '@/server/ops/postgres';
 
-import { testOrigin } from '../helpers/api';
-import { testSecret } from '../helpers/test-server';
+import { createTestApp, testOrigin } from '../helpers/api';
 
+let ctx: ReturnType<typeof createTestApp>;
 let db: Database;
 
 beforeAll(async () => {
   // A database of its own: the demo data never mixes with other tests' rows.
   const url = await ensureDatabase(await ensureCluster(), `cyclemoot_${inject('runId')}_seed`, { fresh: true });
   await migrateDatabase(url);
-  db = createDatabase(url, 2);
+  ctx = createTestApp(url);
+  db = ctx.db;
 });
-afterAll(() => db.$client.end());
+afterAll(() => ctx.close());
 
 describe('demo data', () => {
   it('seeds one team with one member per role and two reviews, only into an empty database', async () => {
@@ -35,10 +34,8 @@ describe('demo data', () => {
   });
 
   it('lets every documented demo user sign in with the documented password', async () => {
-    const auth = createAuth({ db, baseURL: testOrigin, secret: testSecret, mailer: { async send() {} } });
-    const app = createApp({ db, auth, broadcast: { toTeam() {} } });
     for (const u of demoUsers) {
-      const agent = supertest.agent(app).set('Origin', testOrigin);
+      const agent = supertest.agent(ctx.app).set('Origin', testOrigin);
       const res = await agent.post('/api/auth/sign-in/email').send({ email: u.email, password: demoPassword });
       expect(res.status, u.email).toBe(200);
       const me = await agent.get('/api/me');
