@@ -9,6 +9,7 @@ import {
   type ViewStyle,
 } from 'react-native';
 
+import { focusRing, type PressState } from './focus';
 import { Text } from './text';
 import { useTheme } from './theme';
 import { radius, space, touchTarget } from './tokens';
@@ -56,12 +57,12 @@ export function Button({
       accessibilityState={{ disabled: !!inactive, busy: !!busy }}
       disabled={inactive}
       {...rest}
-      style={({ pressed, hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
+      style={({ pressed, hovered, focused }: PressState) => [
         styles.base,
         small && styles.small,
         { backgroundColor: colours.bg, borderColor: colours.border },
         (pressed || hovered) && !inactive && { opacity: 0.82 },
-        focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: 2 },
+        focused && focusRing(t),
         inactive && { opacity: 0.5 },
         style,
       ]}

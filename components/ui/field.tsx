@@ -1,6 +1,7 @@
 import { forwardRef, useState } from 'react';
 import { Pressable, StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
 
+import { focusRing, type PressState } from './focus';
 import { Text } from './text';
 import { useTheme } from './theme';
 import { fontFamily, radius, space, touchTarget, typeScale } from './tokens';
@@ -97,13 +98,13 @@ export function Choice<V extends string>({
               aria-checked={selected}
               testID={`${testID}-${o.value}`}
               onPress={() => onChange(o.value)}
-              style={({ focused }: { pressed: boolean; focused?: boolean }) => [
+              style={({ focused }: PressState) => [
                 styles.choice,
                 {
                   borderColor: selected ? t.accent : t.hairline,
                   backgroundColor: selected ? t.accent : t.surfaceRaised,
                 },
-                focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: 2 },
+                focused && focusRing(t),
               ]}
             >
               <Text size="small" weight="medium" style={{ color: selected ? t.onAccent : t.text }}>

@@ -6,6 +6,7 @@ import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Field } from '@/components/ui/field';
+import { focusRing, type PressState } from '@/components/ui/focus';
 import { formatAgo } from '@/components/ui/format';
 import { useMessage } from '@/components/ui/message';
 import { PressableLink } from '@/components/ui/pressable-link';
@@ -99,10 +100,10 @@ export function ReviewCard({ review, canEdit, canArchive }: { review: Review; ca
           href={`/reviews/${review.id}`}
           accessibilityLabel={`Open review ${review.name}`}
           testID={`review-open-${review.id}`}
-          style={({ hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
+          style={({ hovered, focused }: PressState) => [
             styles.open,
             hovered && { opacity: 0.8 },
-            focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: 2 },
+            focused && focusRing(t),
           ]}
         >
           <View style={styles.titleRow}>

@@ -1,5 +1,6 @@
 import { StyleSheet, View } from 'react-native';
 
+import { focusRing, type PressState } from '@/components/ui/focus';
 import { PressableLink } from '@/components/ui/pressable-link';
 import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
@@ -18,11 +19,11 @@ export function NavLink({ item, active, layout }: { item: NavItem; active: boole
       accessibilityLabel={item.label}
       aria-current={active ? 'page' : undefined}
       testID={item.testID}
-      style={({ focused, hovered }: { pressed: boolean; focused?: boolean; hovered?: boolean }) => [
+      style={({ focused, hovered }: PressState) => [
         layout === 'rail' ? styles.rail : styles.bar,
         layout === 'rail' && active && { backgroundColor: t.surfaceSunk },
         layout === 'rail' && hovered && !active && { backgroundColor: t.surfaceSunk },
-        focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: -2 },
+        focused && focusRing(t, true),
       ]}
     >
       <Icon colour={colour} size={layout === 'rail' ? 20 : 24} />

@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { Modal, Pressable, StyleSheet, View } from 'react-native';
 
 import { useCurrentTeam } from '@/components/state/current-team';
+import { focusRing, type PressState } from '@/components/ui/focus';
 import { ChevronIcon, PlusIcon } from '@/components/ui/icons';
 import { useIsWide } from '@/components/ui/layout';
 import { Text } from '@/components/ui/text';
@@ -27,10 +28,10 @@ export function TeamSwitcher() {
         aria-haspopup="dialog"
         testID="team-switcher"
         onPress={() => setOpen(true)}
-        style={({ focused, hovered }: { pressed: boolean; focused?: boolean; hovered?: boolean }) => [
+        style={({ focused, hovered }: PressState) => [
           styles.trigger,
           { borderColor: t.hairline, backgroundColor: hovered ? t.surfaceSunk : t.surfaceRaised },
-          focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: 2 },
+          focused && focusRing(t),
         ]}
       >
         <View style={styles.triggerText}>
@@ -78,10 +79,10 @@ export function TeamSwitcher() {
                       setOpen(false);
                       router.navigate('/');
                     }}
-                    style={({ hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
+                    style={({ hovered, focused }: PressState) => [
                       styles.option,
                       (selected || hovered) && { backgroundColor: t.surfaceSunk },
-                      focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: -2 },
+                      focused && focusRing(t, true),
                     ]}
                   >
                     <View
@@ -105,12 +106,12 @@ export function TeamSwitcher() {
                 setOpen(false);
                 router.navigate('/teams/new');
               }}
-              style={({ hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
+              style={({ hovered, focused }: PressState) => [
                 styles.option,
                 styles.newTeam,
                 { borderTopColor: t.hairline },
                 hovered && { backgroundColor: t.surfaceSunk },
-                focused && { outlineColor: t.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: -2 },
+                focused && focusRing(t, true),
               ]}
             >
               <PlusIcon colour={t.text} />
