@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
 
-import { evaluateCycle, type CycleInput, type CycleResult } from '@/server/engine';
+import { evaluateCycle, type CycleInput } from '@/server/engine';
 import { makeFuel } from '@/server/engine/processes/combustion';
 import { speciesMolarEnthalpy } from '@/server/engine/properties/nasa-species';
 import { expectClose } from '@/tests/helpers/expect-close';
 
-import { irrAir, irrCombustion, simpleAir, simpleCombustion, variant } from './cases';
+import { byLabel, irrAir, irrCombustion, simpleAir, simpleCombustion, variant } from './cases';
 
 const configurations: Array<[string, CycleInput]> = [
   ['simple, air', simpleAir],
@@ -31,12 +31,6 @@ const configurations: Array<[string, CycleInput]> = [
     }),
   ],
 ];
-
-function byLabel(result: CycleResult, label: string) {
-  const state = result.states.find((s) => s.label === label);
-  if (!state) throw new Error(`no state "${label}"`);
-  return state;
-}
 
 /** Enthalpy of the unburnt fuel per kg at a temperature, straight from the species data. */
 function fuelEnthalpy(hydrogenVolumeFraction: number, temperatureK: number): number {
@@ -160,8 +154,8 @@ describe.each(configurations)('%s', (_name, input) => {
 describe('combustion details', () => {
   it('reheat burns more fuel in the products', () => {
     const result = evaluateCycle(irrCombustion, { paths: false });
-    const combustor = result.states.find((s) => s.label === 'combustor exit')!;
-    const reheater = result.states.find((s) => s.label === 'reheater 1 exit')!;
+    const combustor = byLabel(result, 'combustor exit');
+    const reheater = byLabel(result, 'reheater 1 exit');
     expect(reheater.massFlowRatio).toBeGreaterThan(combustor.massFlowRatio);
     expectClose(reheater.massFlowRatio, 1 + result.fuelAirRatio!, { rel: 1e-12 }, 'total fuel');
   });

@@ -1,4 +1,4 @@
-import type { CycleInput } from '@/server/engine';
+import type { CycleInput, CycleResult, StatePoint } from '@/server/engine';
 
 /** ISO reference ambient: 15 °C, 101.325 kPa, 60 % RH (common practice). */
 export const ISO_AMBIENT = { temperatureK: 288.15, pressureKPa: 101.325, relativeHumidity: 0.6 } as const;
@@ -42,4 +42,11 @@ export function variant(base: CycleInput, change: (input: any) => void): CycleIn
   const copy = structuredClone(base) as any;
   change(copy);
   return copy;
+}
+
+/** The state of a result with this label; throws if there is none. */
+export function byLabel(result: CycleResult, label: string): StatePoint {
+  const state = result.states.find((s) => s.label === label);
+  if (!state) throw new Error(`no state "${label}"`);
+  return state;
 }

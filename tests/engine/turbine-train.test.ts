@@ -1,19 +1,13 @@
 import { describe, expect, it } from 'vitest';
 
-import { evaluateCycle, type CycleResult } from '@/server/engine';
+import { evaluateCycle } from '@/server/engine';
 import { burnToTemperature, makeFuel, makeStream } from '@/server/engine/processes/combustion';
 import { expand } from '@/server/engine/processes/expansion';
 import { regenerate } from '@/server/engine/processes/heat-exchange';
 import { humidAir } from '@/server/engine/properties/humid-air';
 import { expectClose } from '@/tests/helpers/expect-close';
 
-import { irrCombustion, ISO_AMBIENT, variant } from './cases';
-
-function byLabel(result: CycleResult, label: string) {
-  const state = result.states.find((s) => s.label === label);
-  if (!state) throw new Error(`no state "${label}"`);
-  return state;
-}
+import { byLabel, irrCombustion, ISO_AMBIENT, variant } from './cases';
 
 /**
  * The cycle runs its hot section through a lean pass on scalars (cycles/turbine-train.ts).
