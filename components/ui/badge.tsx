@@ -1,6 +1,6 @@
 import { StyleSheet, View } from 'react-native';
 
-import { Text } from './text';
+import { Text, toneColour } from './text';
 import { useTheme } from './theme';
 import { radius, space } from './tokens';
 
@@ -9,17 +9,10 @@ type Tone = 'neutral' | 'good' | 'warning' | 'danger' | 'cold' | 'heat';
 /** A small label (a role, a status). Colour is never the only signal: the word is always there. */
 export function Badge({ label, tone = 'neutral', testID }: { label: string; tone?: Tone; testID?: string }) {
   const t = useTheme();
-  const colour = {
-    neutral: t.textSoft,
-    good: t.good,
-    warning: t.warning,
-    danger: t.danger,
-    cold: t.cold,
-    heat: t.heat,
-  }[tone];
+  const textTone = tone === 'neutral' ? 'soft' : tone;
   return (
-    <View style={[styles.badge, { borderColor: colour }]} testID={testID}>
-      <Text size="caption" weight="medium" style={{ color: colour }}>
+    <View style={[styles.badge, { borderColor: toneColour(t, textTone) }]} testID={testID}>
+      <Text size="caption" weight="medium" tone={textTone}>
         {label}
       </Text>
     </View>

@@ -1,6 +1,7 @@
 import { Text as RNText, type TextProps as RNTextProps, type TextStyle } from 'react-native';
 
 import { useTheme } from './theme';
+import type { Theme } from './themes';
 import { fontFamily, typeScale, type TypeSize } from './tokens';
 
 type Tone = 'default' | 'soft' | 'muted' | 'danger' | 'good' | 'warning' | 'heat' | 'cold' | 'onAccent';
@@ -14,6 +15,21 @@ export type TextProps = RNTextProps & {
   mono?: boolean;
   align?: TextStyle['textAlign'];
 };
+
+/** The colour of a tone in a theme. */
+export function toneColour(t: Theme, tone: Tone): string {
+  return {
+    default: t.text,
+    soft: t.textSoft,
+    muted: t.textMuted,
+    danger: t.danger,
+    good: t.good,
+    warning: t.warning,
+    heat: t.heat,
+    cold: t.cold,
+    onAccent: t.onAccent,
+  }[tone];
+}
 
 function family(weight: Weight, mono: boolean): string {
   if (mono) return weight === 'regular' ? fontFamily.mono : fontFamily.monoMedium;
@@ -33,23 +49,12 @@ export function Text({
   ...rest
 }: TextProps) {
   const t = useTheme();
-  const colour = {
-    default: t.text,
-    soft: t.textSoft,
-    muted: t.textMuted,
-    danger: t.danger,
-    good: t.good,
-    warning: t.warning,
-    heat: t.heat,
-    cold: t.cold,
-    onAccent: t.onAccent,
-  }[tone];
   return (
     <RNText
       {...rest}
       style={[
         typeScale[size],
-        { color: colour, fontFamily: family(weight, mono), textAlign: align },
+        { color: toneColour(t, tone), fontFamily: family(weight, mono), textAlign: align },
         mono && { fontVariant: ['tabular-nums'] },
         style,
       ]}
