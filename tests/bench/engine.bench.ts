@@ -3,43 +3,8 @@
  * cases together in one process (a case warmed alone can hide deoptimisation that mixed
  * work triggers). Run with `npm run bench`.
  */
-import { evaluateCycle, sweepCycle, type CycleInput } from '@/server/engine';
-
-const ambient = { temperatureK: 288.15, pressureKPa: 101.325, relativeHumidity: 0.6 };
-
-const simpleAir: CycleInput = {
-  ambient,
-  fluid: 'variable-cp-air',
-  compressor: { stages: 1, pressureRatio: 15, isentropicEfficiency: 0.88 },
-  regenerator: null,
-  combustorPressureLoss: 0.04,
-  turbine: { stages: 1, inletTemperatureK: 1500, isentropicEfficiency: 0.9 },
-  generatorEfficiency: 0.985,
-  netPowerKW: 50_000,
-};
-
-const intercooledReheatRegenerativeAir: CycleInput = {
-  ambient,
-  fluid: 'variable-cp-air',
-  compressor: { stages: 2, pressureRatio: 12, isentropicEfficiency: 0.88, intercoolerPressureLoss: 0.02 },
-  regenerator: { effectiveness: 0.85, airSidePressureLoss: 0.03, gasSidePressureLoss: 0.03 },
-  combustorPressureLoss: 0.04,
-  turbine: { stages: 2, inletTemperatureK: 1500, isentropicEfficiency: 0.9, reheaterPressureLoss: 0.02 },
-  generatorEfficiency: 0.985,
-  netPowerKW: 50_000,
-};
-
-const intercooledReheatRegenerativeCombustion: CycleInput = {
-  ...intercooledReheatRegenerativeAir,
-  fluid: 'combustion',
-  fuel: { hydrogenVolumeFraction: 0.2, temperatureK: 298.15 },
-};
-
-const simpleCombustion: CycleInput = {
-  ...simpleAir,
-  fluid: 'combustion',
-  fuel: { hydrogenVolumeFraction: 0, temperatureK: 298.15 },
-};
+import { evaluateCycle, sweepCycle } from '@/server/engine';
+import { irrAir, irrCombustion, simpleAir, simpleCombustion } from '@/tests/engine/cases';
 
 interface Case {
   readonly name: string;
@@ -52,17 +17,17 @@ const cases: Case[] = [
   {
     name: '2+2 intercooled-reheat-regenerative, air',
     targetMicroseconds: null,
-    run: () => evaluateCycle(intercooledReheatRegenerativeAir, { paths: false }),
+    run: () => evaluateCycle(irrAir, { paths: false }),
   },
   {
     name: '2+2 intercooled-reheat-regenerative, combustion',
     targetMicroseconds: 5,
-    run: () => evaluateCycle(intercooledReheatRegenerativeCombustion, { paths: false }),
+    run: () => evaluateCycle(irrCombustion, { paths: false }),
   },
   {
     name: '2+2 combustion with T-s paths',
     targetMicroseconds: 10,
-    run: () => evaluateCycle(intercooledReheatRegenerativeCombustion),
+    run: () => evaluateCycle(irrCombustion),
   },
   {
     name: '200-point pressure-ratio sweep, simple combustion',
