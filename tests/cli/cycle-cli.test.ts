@@ -5,18 +5,11 @@ import { join } from 'node:path';
 
 import { describe, expect, it } from 'vitest';
 
+import { irrCombustion, variant } from '@/tests/engine/cases';
+
 const root = join(__dirname, '..', '..');
-const input = {
-  ambient: { temperatureK: 288.15, pressureKPa: 101.325, relativeHumidity: 0.6 },
-  fluid: 'combustion',
-  fuel: { hydrogenVolumeFraction: 0, temperatureK: 298.15 },
-  compressor: { stages: 2, pressureRatio: 12, isentropicEfficiency: 0.88, intercoolerPressureLoss: 0.02 },
-  regenerator: { effectiveness: 0.85, airSidePressureLoss: 0.03, gasSidePressureLoss: 0.03 },
-  combustorPressureLoss: 0.04,
-  turbine: { stages: 2, inletTemperatureK: 1500, isentropicEfficiency: 0.9, reheaterPressureLoss: 0.02 },
-  generatorEfficiency: 0.985,
-  netPowerKW: 50000,
-};
+// The 2+2 combustion case, burning methane.
+const input = variant(irrCombustion, (c) => (c.fuel.hydrogenVolumeFraction = 0));
 
 function run(args: string[], stdin?: string) {
   const result = spawnSync(process.execPath, ['--import', 'tsx', 'server/cli/cycle.ts', ...args], {
