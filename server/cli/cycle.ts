@@ -18,30 +18,37 @@ const EXIT_BAD_INPUT = 2;
 
 class UsageError extends Error {}
 
-const CSV_COLUMNS: Array<[string, (r: CycleResult) => number | null]> = [
-  ['netWorkKJPerKg', (r) => r.netWorkKJPerKg],
-  ['thermalEfficiency', (r) => r.thermalEfficiency],
-  ['heatInputKJPerKg', (r) => r.heatInputKJPerKg],
-  ['compressorWorkKJPerKg', (r) => r.compressorWorkKJPerKg],
-  ['turbineWorkKJPerKg', (r) => r.turbineWorkKJPerKg],
-  ['backWorkRatio', (r) => r.backWorkRatio],
-  ['regeneratorDutyKJPerKg', (r) => r.regeneratorDutyKJPerKg],
-  ['exhaustTemperatureK', (r) => r.exhaustTemperatureK],
-  ['fuelAirRatio', (r) => r.fuelAirRatio],
-  ['airMassFlowKgPerS', (r) => r.airMassFlowKgPerS],
-  ['fuelMassFlowKgPerS', (r) => r.fuelMassFlowKgPerS],
-  ['heatRateKJPerKWh', (r) => r.heatRateKJPerKWh],
-  ['co2KgPerMWh', (r) => r.co2KgPerMWh],
-];
+/** The figures of a result, one column each, in this order. */
+const CSV_COLUMNS = [
+  'netWorkKJPerKg',
+  'thermalEfficiency',
+  'heatInputKJPerKg',
+  'compressorWorkKJPerKg',
+  'turbineWorkKJPerKg',
+  'backWorkRatio',
+  'regeneratorDutyKJPerKg',
+  'exhaustTemperatureK',
+  'fuelAirRatio',
+  'airMassFlowKgPerS',
+  'fuelMassFlowKgPerS',
+  'heatRateKJPerKWh',
+  'co2KgPerMWh',
+] as const satisfies readonly (keyof CycleResult)[];
 
 function toCsv(results: CycleResult[]): string {
-  const header = ['input', ...CSV_COLUMNS.map(([name]) => name), 'warnings'];
+  const header = ['input', ...CSV_COLUMNS, 'warnings'];
   const rows = results.map((r, i) => [
     i + 1,
-    ...CSV_COLUMNS.map(([, get]) => get(r)),
+    ...CSV_COLUMNS.map((key) => r[key]),
     r.warnings.map((w) => w.code).join(' '),
   ]);
   return stringify([header, ...rows], { cast: { number: (n) => String(n) } });
+}
+
+/** The field an input error names, and its message for that field alone. */
+function fieldError(error: ApiError): { field: string; message: string } {
+  const field = error.details.field ?? '(body)';
+  return { field, message: error.details.fieldErrors?.[field]?.[0] ?? error.message };
 }
 
 function evaluateOne(body: unknown, path: string): CycleResult {
@@ -50,8 +57,8 @@ function evaluateOne(body: unknown, path: string): CycleResult {
   } catch (error) {
     if (error instanceof EngineInputError) throw ApiError.invalidField(path + error.field, error.message);
     if (error instanceof ApiError && path) {
-      const field = error.details.field ?? '(body)';
-      throw ApiError.invalidField(path + field, error.message.replace(/^[^:]*: /, ''));
+      const { field, message } = fieldError(error);
+      throw ApiError.invalidField(path + field, message);
     }
     throw error;
   }
@@ -79,8 +86,7 @@ try {
   process.exitCode = main(process.argv.slice(2));
 } catch (error) {
   if (error instanceof ApiError) {
-    const field = error.details.field ?? '(body)';
-    const message = error.details.fieldErrors?.[field]?.[0] ?? error.message;
+    const { field, message } = fieldError(error);
     process.stdout.write(JSON.stringify({ error: { code: error.code, field, message } }) + '\n');
     process.exitCode = EXIT_BAD_INPUT;
   } else if (error instanceof UsageError || (error as NodeJS.ErrnoException)?.code === 'ENOENT') {
