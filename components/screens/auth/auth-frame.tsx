@@ -1,9 +1,9 @@
 import type { ReactNode } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
+import { Brand } from '@/components/ui/brand';
 import { CautionLine } from '@/components/ui/caution-line';
 import { useDocumentTitle } from '@/components/ui/document-title';
-import { BrandMark } from '@/components/ui/icons';
 import { useIsWide } from '@/components/ui/layout';
 import { Heading, Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
@@ -33,7 +33,7 @@ export function AuthFrame({
       <View style={[styles.inner, wide && styles.innerWide]}>
         {wide ? (
           <View style={styles.aside}>
-            <Brand />
+            <Brand large />
             <Text size="title" tone="soft" style={{ maxWidth: 420 }}>
               Set up cycle Candidates for a site, compare them side by side, and record the Team’s decision with its
               reasons.
@@ -41,7 +41,7 @@ export function AuthFrame({
             <LoopSketch />
           </View>
         ) : (
-          <Brand />
+          <Brand large />
         )}
         <View style={[styles.card, { backgroundColor: t.surfaceRaised, borderColor: t.hairline }]} testID={testID}>
           <Heading level={1}>{title}</Heading>
@@ -53,18 +53,6 @@ export function AuthFrame({
         <CautionLine />
       </View>
     </ScrollView>
-  );
-}
-
-function Brand() {
-  const t = useTheme();
-  return (
-    <View style={styles.brand}>
-      <BrandMark size={36} ink={t.text} />
-      <Text size="heading" weight="semibold">
-        Cyclemoot
-      </Text>
-    </View>
   );
 }
 
@@ -88,7 +76,6 @@ const styles = StyleSheet.create({
   inner: { width: '100%', maxWidth: 440, gap: space[3] },
   innerWide: { maxWidth: 960, flexDirection: 'row', alignItems: 'center', gap: space[8] },
   aside: { flex: 1, gap: space[3] },
-  brand: { flexDirection: 'row', alignItems: 'center', gap: space[1] + space.half },
   card: { width: '100%', maxWidth: 440, borderWidth: 1, borderRadius: radius.card, padding: space[3], gap: space[2] },
   foot: { width: '100%', maxWidth: 440, marginTop: 'auto' },
   sketch: { gap: space[1], maxWidth: 320 },

@@ -3,6 +3,7 @@ import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 
+import { Brand } from '@/components/ui/brand';
 import { BrandMark } from '@/components/ui/icons';
 import { useIsWide } from '@/components/ui/layout';
 import { Text } from '@/components/ui/text';
@@ -76,24 +77,11 @@ export function AppShell({ userName, children }: { userName: string; children: R
   );
 }
 
-function Brand() {
-  const t = useTheme();
-  return (
-    <View style={styles.brand}>
-      <BrandMark size={28} ink={t.text} />
-      <Text size="title" weight="semibold">
-        Cyclemoot
-      </Text>
-    </View>
-  );
-}
-
 const styles = StyleSheet.create({
   wide: { flex: 1, flexDirection: 'row' },
   rail: { width: 256, borderRightWidth: 1, padding: space[2], gap: space[2] },
   railNav: { gap: space.half, marginTop: space[1] },
   railFoot: { marginTop: 'auto', gap: 0 },
-  brand: { flexDirection: 'row', alignItems: 'center', gap: space[1], minHeight: space[6] },
   main: { flex: 1, minWidth: 0 },
   phone: { flex: 1 },
   topStrip: {
