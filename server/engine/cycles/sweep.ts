@@ -141,8 +141,8 @@ export function sweepStagedCycle(input: SweepInput): SweepResult {
   const { values, integer } = validateSweep(input);
   const evaluate = (value: number): CycleResult =>
     evaluateStagedCycle(withParameter(input.base, input.parameter, value), { paths: false });
-  // The base itself must be a valid cycle apart from the swept value, so that its other
-  // errors are reported once and by their own field.
+  // A swept input in a section the base lacks (the effectiveness of no regenerator) is
+  // refused here, once and in its own words, rather than as the error of every sample.
   withParameter(input.base, input.parameter, values[0]);
 
   const points: SweepPoint[] = values.map((value) => {
