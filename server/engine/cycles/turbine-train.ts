@@ -30,7 +30,6 @@ const {
   cpOf,
   enthalpyOf,
   newPolynomial,
-  standardEntropyOf,
   temperatureFromEnthalpyOf,
   temperatureFromStandardEntropyOf,
 } = propertyPolynomial;
