@@ -16,7 +16,7 @@ import type { Activity } from '@/server/contracts/team';
 const str = (v: unknown) => (typeof v === 'string' ? v : '');
 
 /** A sentence for each kind of entry; unknown kinds still read as plain words. */
-export function describeActivity(a: Activity): string {
+function describeActivity(a: Activity): string {
   const d = a.detail;
   switch (a.kind) {
     case 'review.created':
