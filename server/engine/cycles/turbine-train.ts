@@ -164,7 +164,9 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
   // on the answer, so this lands within a hundredth of a kelvin or so: one step); on the
   // second pass, the first pass's value; on the first pass, the temperature ratios of the
   // stage before (stages behind a reheat start where the first started), and for the first
-  // stage the constant-cp answer.
+  // stage the constant-cp answer. The choice is written out for each of the two inversions
+  // rather than through a shared helper: the first-pass seeds differ, and each is computed
+  // only on the branch that takes it.
   const passes = pass.passes;
   const span = pass.inletEnthalpy - pass.previousInletEnthalpy;
   const extrapolation = span !== 0 ? (combustorInletEnthalpy - pass.inletEnthalpy) / span : 0;
