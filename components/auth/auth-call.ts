@@ -5,27 +5,30 @@ type AuthResult<T> = {
   error: { code?: string; message?: string; status: number; statusText?: string } | null;
 };
 
+/** Which form field a better-auth error code belongs to, by its exact code. */
+export type AuthFieldCodes = Readonly<Record<string, string>>;
+
 /**
  * Unwraps a better-auth client call: returns data, or throws our ApiError so auth
- * failures are presented like every other API failure. `field` names the form field a
- * failure belongs to when the code says so (e.g. a taken e-mail).
+ * failures are presented like every other API failure. `fields` names the form field a
+ * failure belongs to (e.g. a taken e-mail); other codes stay form-level messages.
  */
-export async function authCall<T>(
-  call: Promise<AuthResult<T>>,
-  fieldFor?: (code: string) => string | undefined,
-): Promise<T> {
+export async function authCall<T>(call: Promise<AuthResult<T>>, fields?: AuthFieldCodes): Promise<T> {
   const result = await call;
   if (result.error) {
     const code = (result.error.code ?? '').toUpperCase();
-    throw apiErrorFromAuth(result.error, fieldFor?.(code));
+    throw apiErrorFromAuth(result.error, fields?.[code]);
   }
   return result.data as T;
 }
 
-/** better-auth error codes that belong to a field of the sign-in / sign-up forms. */
-export function credentialField(code: string): string | undefined {
-  if (code.includes('EMAIL')) return 'email';
-  if (code.includes('PASSWORD')) return 'password';
-  if (code.includes('NAME')) return 'name';
-  return undefined;
-}
+/** better-auth's codes for the fields of the sign-in / sign-up forms. */
+export const credentialFields: AuthFieldCodes = {
+  INVALID_EMAIL: 'email',
+  USER_ALREADY_EXISTS_USE_ANOTHER_EMAIL: 'email',
+  USER_EMAIL_NOT_FOUND: 'email',
+  INVALID_EMAIL_OR_PASSWORD: 'email',
+  INVALID_PASSWORD: 'password',
+  PASSWORD_TOO_SHORT: 'password',
+  PASSWORD_TOO_LONG: 'password',
+};

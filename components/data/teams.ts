@@ -36,8 +36,7 @@ export function useCreateTeamMutation() {
     mutationFn: async ({ name }: { name: string }) => {
       const team = await authCall(
         authClient.organization.create({ name: name.trim(), slug: teamSlug(name, randomTail()) }),
-        (code) =>
-          code.includes('SLUG') || code.includes('NAME') || code.includes('ORGANIZATION_ALREADY') ? 'name' : undefined,
+        { ORGANIZATION_ALREADY_EXISTS: 'name', ORGANIZATION_SLUG_ALREADY_TAKEN: 'name' },
       );
       return team as { id: string; name: string; slug: string };
     },
@@ -58,9 +57,11 @@ export function useInviteMemberMutation(teamId: string) {
   const refresh = useTeamChange(teamId);
   return useMutation({
     mutationFn: ({ email, role }: { email: string; role: TeamRole }) =>
-      authCall(authClient.organization.inviteMember({ email, role, organizationId: teamId }), (code) =>
-        code.includes('EMAIL') || code.includes('ALREADY') || code.includes('INVIT') ? 'email' : undefined,
-      ),
+      authCall(authClient.organization.inviteMember({ email, role, organizationId: teamId }), {
+        INVALID_EMAIL: 'email',
+        USER_IS_ALREADY_A_MEMBER_OF_THIS_ORGANIZATION: 'email',
+        USER_IS_ALREADY_INVITED_TO_THIS_ORGANIZATION: 'email',
+      }),
     onSuccess: refresh,
   });
 }

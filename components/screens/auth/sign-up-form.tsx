@@ -2,7 +2,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useRef, useState } from 'react';
 import { StyleSheet, View, type TextInput } from 'react-native';
 
-import { authCall, credentialField } from '@/components/auth/auth-call';
+import { authCall, credentialFields } from '@/components/auth/auth-call';
 import { authClient } from '@/components/auth/auth-client';
 import { emailField, passwordField, personName } from '@/components/auth/credentials';
 import { Button } from '@/components/ui/button';
@@ -40,7 +40,7 @@ export function SignUpForm({
           email: email.value.trim().toLowerCase(),
           password: password.value,
         }),
-        credentialField,
+        credentialFields,
       );
       qc.clear();
       await onSignedUp();
