@@ -37,7 +37,17 @@ export function createAuth({ db, baseURL, secret, mailer }: AuthOptions) {
       database: { generateId: 'uuid' },
     },
     // Throttles repeated sign-in attempts per address; the test suite signs up many users from one address.
-    rateLimit: { enabled: process.env.VITEST === undefined, window: 60, max: 100 },
+    // A meeting room signs in from one address (on loopback, everyone does), so the sign-in and
+    // sign-up limits are per minute and roomier than better-auth's 3 per 10 s.
+    rateLimit: {
+      enabled: process.env.VITEST === undefined,
+      window: 60,
+      max: 100,
+      customRules: {
+        '/sign-in/*': { window: 60, max: 30 },
+        '/sign-up/*': { window: 60, max: 10 },
+      },
+    },
     plugins: [
       organization({
         ac: accessControl,
