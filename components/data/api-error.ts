@@ -65,8 +65,30 @@ export function apiErrorFromAuth(
   field?: string,
 ): ApiError {
   const status = error.status ?? 400;
-  const message = error.message || error.statusText || defaultMessage(status);
-  return new ApiError({ status, code: (error.code ?? 'auth_error').toLowerCase(), message: sentence(message), field });
+  const code = (error.code ?? '').toUpperCase();
+  const message = authWording[code] ?? ourWords(error.message || error.statusText || defaultMessage(status));
+  return new ApiError({ status, code: (code || 'auth_error').toLowerCase(), message: sentence(message), field });
+}
+
+/** better-auth's failures a user can meet, said in our words (Team, e-mail, the roles). */
+const authWording: Readonly<Record<string, string>> = {
+  INVALID_EMAIL_OR_PASSWORD: 'Wrong e-mail or password.',
+  USER_ALREADY_EXISTS_USE_ANOTHER_EMAIL:
+    'An account with this e-mail already exists. Sign in instead, or use another address.',
+  ORGANIZATION_ALREADY_EXISTS: 'A Team with this name already exists.',
+  ORGANIZATION_SLUG_ALREADY_TAKEN: 'A Team with this name already exists.',
+  USER_IS_ALREADY_A_MEMBER_OF_THIS_ORGANIZATION: 'This person is already a member of the Team.',
+  USER_IS_ALREADY_INVITED_TO_THIS_ORGANIZATION: 'This person already has an invitation to the Team waiting.',
+  YOU_ARE_NOT_ALLOWED_TO_INVITE_USERS_TO_THIS_ORGANIZATION: 'Only an Owner can invite people to this Team.',
+  YOU_ARE_NOT_ALLOWED_TO_INVITE_USER_WITH_THIS_ROLE: 'Only an Owner can invite someone as Owner.',
+  YOU_ARE_NOT_THE_RECIPIENT_OF_THE_INVITATION:
+    'This invitation was sent to another e-mail address. Sign in with that address to accept it.',
+  INVITATION_NOT_FOUND: 'This invitation is no longer open: it was accepted or cancelled, or it has expired.',
+};
+
+/** Any other better-auth message: its word for a workspace is our Team. */
+function ourWords(text: string): string {
+  return text.replace(/\borganizations\b/gi, 'Teams').replace(/\borganization\b/gi, 'Team');
 }
 
 export function networkError(): ApiError {
