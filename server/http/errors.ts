@@ -21,7 +21,7 @@ export class ApiError extends Error {
   static unauthorized(message = 'Sign in to continue.') {
     return new ApiError(401, 'unauthorized', message);
   }
-  static forbidden(message = 'Your role in this team does not allow this.') {
+  static forbidden(message = 'Your role in this Team does not allow this.') {
     return new ApiError(403, 'forbidden', message);
   }
   static notFound(what = 'The requested item') {

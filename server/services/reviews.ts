@@ -62,9 +62,9 @@ function isNameTaken(error: unknown) {
 }
 
 const nameTaken = (name: string) =>
-  new ApiError(409, 'conflict', `A review named "${name}" already exists in this team.`, {
+  new ApiError(409, 'conflict', `A review named "${name}" already exists in this Team.`, {
     field: 'name',
-    fieldErrors: { name: ['This team already has a review with this name.'] },
+    fieldErrors: { name: ['This Team already has a review with this name.'] },
   });
 
 export type ServiceContext = { db: Database; broadcast: Broadcast; actorId: string };
