@@ -8,17 +8,23 @@ import { useMeQuery } from '@/components/data/me';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Choice } from '@/components/ui/field';
-import { temperature, unitSystemLabels, type UnitSystem } from '@/components/ui/format';
+import { unitSystemLabels, type UnitSystem } from '@/components/ui/format';
 import { useMessage } from '@/components/ui/message';
 import { Screen } from '@/components/ui/screen';
-import { Heading, Quantity, Text } from '@/components/ui/text';
+import { Heading, Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
 import { useUnitSystem } from '@/components/ui/unit-system';
 import { closeRealtimeSocket } from '@/realtime/client';
 
+// Said in words: every number on screen comes from a computation, never from an example.
+const unitSummary: Record<UnitSystem, string> = {
+  si: 'Temperatures in K, pressures in kPa, flows in kg/s, specific work in kJ/kg, heat rate in kJ/kWh.',
+  us: 'Temperatures in °F, pressures in psia, flows in lb/s, specific work in Btu/lb, heat rate in Btu/kWh.',
+};
+
 const unitOptions = (['si', 'us'] as const).map((value) => ({ value, label: unitSystemLabels[value] }));
 
-/** Account, display units, sign-out. */
+/** Account with sign-out, and the display units. */
 export function SettingsScreen() {
   const me = useMeQuery();
   const { system, setSystem } = useUnitSystem();
@@ -26,7 +32,6 @@ export function SettingsScreen() {
   const router = useRouter();
   const message = useMessage();
   const [signingOut, setSigningOut] = useState(false);
-  const iso = temperature(288.15, system);
 
   const signOut = async () => {
     setSigningOut(true);
@@ -53,28 +58,6 @@ export function SettingsScreen() {
             {me.data?.user.email ?? ''}
           </Text>
         </View>
-      </Card>
-      <Card style={styles.card}>
-        <Heading level={2}>Units</Heading>
-        <Choice<UnitSystem>
-          label="Unit system"
-          options={unitOptions}
-          value={system}
-          onChange={setSystem}
-          testID="unit-system"
-        />
-        <View style={styles.example}>
-          <Text size="small" tone="soft">
-            ISO rating ambient
-          </Text>
-          <Quantity value={iso.value} unit={iso.unit} testID="unit-example" />
-        </View>
-        <Text size="small" tone="muted">
-          Kept on this device for your account. Plant power reads in MW in both systems.
-        </Text>
-      </Card>
-      <Card style={styles.card}>
-        <Heading level={2}>Session</Heading>
         <View style={styles.actions}>
           <Button
             label="Sign out"
@@ -85,6 +68,23 @@ export function SettingsScreen() {
           />
         </View>
       </Card>
+      <Card style={styles.card}>
+        <Heading level={2}>Units</Heading>
+        <Choice<UnitSystem>
+          label="Unit system"
+          options={unitOptions}
+          value={system}
+          onChange={setSystem}
+          testID="unit-system"
+        />
+        <Text size="small" tone="soft" testID="unit-summary">
+          {unitSummary[system]}
+        </Text>
+        <Text size="small" tone="muted">
+          Kept on this device for your account. Plant power reads in MW in both systems (in US customary, hp below 1
+          MW).
+        </Text>
+      </Card>
     </Screen>
   );
 }
@@ -92,5 +92,4 @@ export function SettingsScreen() {
 const styles = StyleSheet.create({
   card: { gap: space[2] },
   actions: { flexDirection: 'row' },
-  example: { flexDirection: 'row', alignItems: 'baseline', justifyContent: 'space-between', gap: space[2] },
 });
