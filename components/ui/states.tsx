@@ -1,6 +1,8 @@
 import type { ReactNode } from 'react';
 import { ActivityIndicator, StyleSheet, View } from 'react-native';
 
+import { isApiError } from '@/components/data/api-error';
+
 import { Button } from './button';
 import { messageFor } from './message-for';
 import { Text } from './text';
@@ -19,15 +21,19 @@ export function ErrorState({
   testID?: string;
 }) {
   const t = useTheme();
+  // A missing item or a refused one stays so however often it is asked for: no retry then.
+  const settled = isApiError(error) && (error.status === 403 || error.status === 404);
   return (
     <View style={[styles.box, { borderColor: t.danger }]} role="alert" testID={testID}>
       <Text weight="semibold" tone="danger">
-        Could not load this
+        {settled ? (error.status === 404 ? 'Not found' : 'Not open to you') : 'Could not load this'}
       </Text>
       <Text tone="soft" align="center">
         {messageFor(error)}
       </Text>
-      {onRetry ? <Button label="Try again" variant="secondary" onPress={onRetry} testID={`${testID}-retry`} /> : null}
+      {onRetry && !settled ? (
+        <Button label="Try again" variant="secondary" onPress={onRetry} testID={`${testID}-retry`} />
+      ) : null}
     </View>
   );
 }
