@@ -1,16 +1,11 @@
 import { z } from 'zod';
 
-/** Shared by the reviews-list form (instant feedback) and the routes (422 with field errors). */
-export const reviewName = z
-  .string({ error: 'Name must be text.' })
-  .trim()
-  .min(3, 'Name needs at least 3 characters.')
-  .max(120, 'Name must be at most 120 characters.');
+import { plainText } from './text';
 
-export const reviewSummary = z
-  .string({ error: 'Summary must be text.' })
-  .trim()
-  .max(2000, 'Summary must be at most 2000 characters.');
+/** Shared by the reviews-list form (instant feedback) and the routes (422 with field errors). */
+export const reviewName = plainText({ label: 'Name', min: 3, max: 120 });
+
+export const reviewSummary = plainText({ label: 'Summary', max: 2000, multiline: true });
 
 export const createReviewInput = z.strictObject({
   name: reviewName,

@@ -58,24 +58,18 @@ export const roles = {
 
 export type Permission = { [K in keyof typeof statements]?: Array<(typeof statements)[K][number]> };
 
-/** True when `role` (a member's role string, possibly comma-separated) grants `permission`. */
+/** True when `role` (one of ours, exactly) grants `permission`; anything else grants nothing. */
 export function roleAllows(role: string, permission: Permission): boolean {
-  return role
-    .split(',')
-    .map((r) => r.trim())
-    .some((r) => {
-      const granted = roles[r as TeamRole];
-      return granted ? granted.authorize(permission as never).success : false;
-    });
+  return isTeamRole(role) && roles[role].authorize(permission as never).success;
 }
 
 /**
- * The role a stored member role string stands for: better-auth keeps roles as a
- * comma-separated list; we give each member one, so the first is the one.
+ * The role a stored member role string stands for. better-auth can keep a comma-separated
+ * list; the database allows exactly one of our five (constraint `member_role_is_ours`), so
+ * anything else is not a role of ours.
  */
 export function primaryRole(stored: string | null): TeamRole | undefined {
-  const first = (stored ?? '').split(',')[0]?.trim() ?? '';
-  return isTeamRole(first) ? first : undefined;
+  return stored !== null && isTeamRole(stored) ? stored : undefined;
 }
 
 export function isTeamRole(value: string): value is TeamRole {

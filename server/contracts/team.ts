@@ -1,6 +1,7 @@
 import { z } from 'zod';
 
 import { teamRoles, type TeamRole } from './roles';
+import { plainText } from './text';
 
 export type TeamMembership = { id: string; name: string; slug: string; role: TeamRole };
 
@@ -19,8 +20,13 @@ export type TeamMember = {
   joinedAt: string;
 };
 
+/**
+ * A pending invitation as a Team page shows it. Only roles that may invite see any; only
+ * Owners see invitations to be Owner; `id` (what accepting needs) only where the viewer
+ * may cancel it, else null.
+ */
 export type PendingInvitation = {
-  id: string;
+  id: string | null;
   email: string;
   role: TeamRole;
   expiresAt: string;
@@ -37,15 +43,30 @@ export type TeamDetail = {
   invitations: PendingInvitation[];
 };
 
-export const teamName = z
-  .string({ error: 'Team name must be text.' })
-  .trim()
-  .min(2, 'Team name needs at least 2 characters.')
-  .max(80, 'Team name must be at most 80 characters.');
+export const teamName = plainText({ label: 'Team name', min: 2, max: 80 });
+
+/** What `teamSlug` makes: lower-case words and digits joined by single hyphens. */
+export const teamSlugField = z
+  .string({ error: 'Slug must be text.' })
+  .max(60, 'Slug must be at most 60 characters.')
+  .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, 'Slug may hold only lower-case letters, digits and single hyphens.');
+
+/**
+ * POST /api/auth/organization/create, as the app sends it. A Team has no logo and no
+ * metadata in this product, so neither is accepted.
+ */
+export const createTeamInput = z.strictObject({
+  name: teamName,
+  slug: teamSlugField,
+  keepCurrentActiveOrganization: z.boolean().optional(),
+});
+
+/** A role is exactly one of ours: never a list, never another library's role. */
+export const teamRole = z.enum(teamRoles, { error: 'Pick one of Owner, Lead, Engineer, Reviewer, Observer.' });
 
 export const inviteInput = z.strictObject({
   email: z.email({ error: 'Enter a valid e-mail address.' }).trim().toLowerCase(),
-  role: z.enum(teamRoles, { error: 'Pick one of Owner, Lead, Engineer, Reviewer, Observer.' }),
+  role: teamRole,
 });
 
 /** Slug from a team name: lower-case words joined by hyphens plus a short random tail. */

@@ -47,6 +47,13 @@ export function parse<S extends z.ZodType>(schema: S, input: unknown): z.output<
   if (result.success) return result.data;
   const fieldErrors: FieldErrors = {};
   for (const issue of result.error.issues) {
+    if (issue.code === 'unrecognized_keys') {
+      // Name each field that is not accepted, so the envelope points at it.
+      for (const extra of issue.keys) {
+        (fieldErrors[issuePath([...issue.path, extra])] ??= []).push(`${extra} is not accepted here.`);
+      }
+      continue;
+    }
     const key = issuePath(issue.path) || '(body)';
     (fieldErrors[key] ??= []).push(issue.message);
   }
