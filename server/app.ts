@@ -1,14 +1,15 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 
-import { toNodeHandler } from 'better-auth/node';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 
 import type { Database } from '@/db/client';
 import type { Broadcast } from '@/realtime/events';
 import type { Auth } from '@/server/auth/auth';
+import { authGate, type AuthLimits } from '@/server/auth/gate';
 import { apiNotFound, errorHandler, requestId } from '@/server/http/handlers';
+import { refuseForeignOrigin } from '@/server/http/origin';
 import { requireSession } from '@/server/http/session';
 import { cyclesRouter } from '@/server/routes/cycles';
 import { publicRouter } from '@/server/routes/public';
@@ -19,6 +20,14 @@ export type AppDeps = {
   db: Database;
   auth: Auth;
   broadcast: Broadcast;
+  /** The origin the app is served from; state-changing requests from any other are refused. */
+  origin: string;
+  /**
+   * Express's `trust proxy`: which proxies may say who the client is (X-Forwarded-For).
+   * None by default: the address is the socket's, so a client cannot invent one.
+   */
+  trustProxy?: boolean | number | string;
+  authLimits?: AuthLimits;
   /** The exported web bundle (dist/); the API alone when absent. */
   webDir?: string;
 };
@@ -26,16 +35,16 @@ export type AppDeps = {
 const jsonBodyLimit = '256kb';
 
 /** Builds the Express app; `server/index.ts` listens, tests use it as it is. */
-export function createApp({ db, auth, broadcast, webDir }: AppDeps): Express {
+export function createApp({ db, auth, broadcast, origin, trustProxy = false, authLimits, webDir }: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', trustProxy);
   // The exported web app loads its own scripts only; the default policy would block its inline boot data.
   app.use(helmet({ contentSecurityPolicy: false, crossOriginEmbedderPolicy: false }));
   app.use(requestId);
 
-  // better-auth reads its own body: mount it before the JSON parser.
-  app.all('/api/auth/{*any}', toNodeHandler(auth));
+  app.use('/api', refuseForeignOrigin(origin));
+  app.use('/api/auth', authGate({ auth, origin, limits: authLimits }));
 
   app.use('/api', express.json({ limit: jsonBodyLimit, strict: true }));
   app.use('/api', publicRouter({ db }));

@@ -6,6 +6,7 @@ import type { Broadcast } from '@/realtime/events';
 import { attachRealtime } from '@/realtime/server';
 import { createApp } from '@/server/app';
 import { createAuth } from '@/server/auth/auth';
+import type { AuthLimits } from '@/server/auth/gate';
 import { createSmtpMailer } from '@/server/auth/mailer';
 
 export type ServerConfig = {
@@ -18,6 +19,9 @@ export type ServerConfig = {
   /** Public origin; defaults to http://<host>:<port>. */
   origin?: string;
   webDir?: string;
+  /** Express `trust proxy` (which proxies may name the client); none by default. */
+  trustProxy?: boolean | number | string;
+  authLimits?: AuthLimits;
 };
 
 export type RunningServer = { url: string; close(): Promise<void> };
@@ -40,7 +44,15 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
 
   const mailer = createSmtpMailer({ ...config.smtp, from: 'Cyclemoot <no-reply@cyclemoot.test>' });
   const auth = createAuth({ db, baseURL: origin, secret: config.secret, mailer });
-  const app = createApp({ db, auth, broadcast, webDir: config.webDir });
+  const app = createApp({
+    db,
+    auth,
+    broadcast,
+    origin,
+    trustProxy: config.trustProxy,
+    authLimits: config.authLimits,
+    webDir: config.webDir,
+  });
   httpServer.on('request', app);
   const realtime = attachRealtime(httpServer, { db, auth, origin });
   target = realtime.broadcast;

@@ -4,7 +4,10 @@ import { organization } from 'better-auth/plugins';
 
 import type { Database } from '@/db/client';
 import * as schema from '@/db/schema';
+import { clientAddressHeader } from '@/server/auth/client-address';
+import { recordAuthError } from '@/server/auth/gate';
 import type { Mailer } from '@/server/auth/mailer';
+import { accountExistsMail, invitationMail, verificationMail } from '@/server/auth/mails';
 import { accessControl, roles } from '@/server/contracts/roles';
 
 export type AuthOptions = {
@@ -15,6 +18,8 @@ export type AuthOptions = {
   mailer: Mailer;
 };
 
+export const verificationLinkHours = 24;
+
 export function createAuth({ db, baseURL, secret, mailer }: AuthOptions) {
   return betterAuth({
     appName: 'Cyclemoot',
@@ -22,12 +27,28 @@ export function createAuth({ db, baseURL, secret, mailer }: AuthOptions) {
     basePath: '/api/auth',
     secret,
     trustedOrigins: [baseURL],
-    database: drizzleAdapter(db, { provider: 'pg', schema }),
+    database: drizzleAdapter(db, { provider: 'pg', schema, transaction: true }),
     emailAndPassword: {
       enabled: true,
       minPasswordLength: 10,
       maxPasswordLength: 128,
-      autoSignIn: true,
+      // An address is an account's only once its owner opened the mailed link: before that,
+      // anyone could sign up as an invited address and accept the invitation.
+      requireEmailVerification: true,
+      // Sign-up answers the same for a new and a known address; the known one's owner hears by mail.
+      async onExistingUserSignUp({ user }) {
+        await mailer.send(accountExistsMail({ to: user.email, name: user.name, signInURL: `${baseURL}/sign-in` }));
+      },
+    },
+    emailVerification: {
+      sendOnSignUp: true,
+      // The sign-in form asks for a new link itself, with the page to come back to.
+      sendOnSignIn: false,
+      autoSignInAfterVerification: true,
+      expiresIn: verificationLinkHours * 60 * 60,
+      async sendVerificationEmail({ user, url }) {
+        await mailer.send(verificationMail({ to: user.email, name: user.name, url, hours: verificationLinkHours }));
+      },
     },
     session: { expiresIn: 60 * 60 * 24 * 30, updateAge: 60 * 60 * 24 },
     advanced: {
@@ -35,19 +56,16 @@ export function createAuth({ db, baseURL, secret, mailer }: AuthOptions) {
       disableOriginCheck: false,
       // Random UUIDs: invitation ids are then unguessable, so the e-mailed link itself proves the address.
       database: { generateId: 'uuid' },
+      // The gate writes the client's address (from the socket, or from a configured proxy) into
+      // this header and drops any copy the client sent; X-Forwarded-For is never read as sent.
+      ipAddress: { ipAddressHeaders: [clientAddressHeader] },
+      useSecureCookies: baseURL.startsWith('https://'),
     },
-    // Throttles repeated sign-in attempts per address; the test suite signs up many users from one address.
-    // A meeting room signs in from one address (on loopback, everyone does), so the sign-in and
-    // sign-up limits are per minute and roomier than better-auth's 3 per 10 s.
-    rateLimit: {
-      enabled: process.env.VITEST === undefined,
-      window: 60,
-      max: 100,
-      customRules: {
-        '/sign-in/*': { window: 60, max: 30 },
-        '/sign-up/*': { window: 60, max: 10 },
-      },
-    },
+    // Limits live in server/auth/gate.ts, per address and per account: better-auth's own are
+    // one bucket per path for everyone behind one address.
+    rateLimit: { enabled: false },
+    // The gate reads these back when better-auth answers 500 (a lost database, the owner rule).
+    onAPIError: { onError: recordAuthError },
     plugins: [
       organization({
         ac: accessControl,
@@ -55,17 +73,17 @@ export function createAuth({ db, baseURL, secret, mailer }: AuthOptions) {
         creatorRole: 'owner',
         invitationExpiresIn: 60 * 60 * 24 * 7,
         cancelPendingInvitationsOnReInvite: true,
+        requireEmailVerificationOnInvitation: true,
         async sendInvitationEmail({ id, email, role, organization: team, inviter }) {
-          const link = `${baseURL}/invitation/${id}`;
-          await mailer.send({
-            to: email,
-            subject: `${inviter.user.name} invited you to ${team.name} on Cyclemoot`,
-            text:
-              `${inviter.user.name} (${inviter.user.email}) invited you to join the team ` +
-              `"${team.name}" on Cyclemoot as ${role}.\n\n` +
-              `Open this link to accept: ${link}\n\n` +
-              `The invitation expires in 7 days. If you did not expect it, ignore this e-mail.`,
-          });
+          await mailer.send(
+            invitationMail({
+              to: email,
+              inviter: { name: inviter.user.name, email: inviter.user.email },
+              teamName: team.name,
+              role,
+              link: `${baseURL}/invitation/${id}`,
+            }),
+          );
         },
       }),
     ],

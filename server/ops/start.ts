@@ -14,6 +14,10 @@ import { ensureWebBuild, webDir } from './web-build';
 const port = Number(process.env.PORT ?? 8090);
 const smtpPort = Number(process.env.CYCLEMOOT_SMTP_PORT ?? 2525);
 const mailWebPort = Number(process.env.CYCLEMOOT_MAIL_PORT ?? 8025);
+/** The public origin when served behind a proxy (https://… makes the session cookie Secure). */
+const origin = process.env.CYCLEMOOT_ORIGIN || undefined;
+/** Which proxy may name the client (Express `trust proxy`: "loopback", an address, a hop count). */
+const trustProxy = process.env.CYCLEMOOT_TRUST_PROXY || undefined;
 
 /** `npm start`: database, migrations, demo data, web bundle, mail fake, then the server. */
 async function main() {
@@ -36,6 +40,8 @@ async function main() {
     secret: authSecret(),
     smtp: { host: '127.0.0.1', port: mail.smtpPort },
     port,
+    origin,
+    trustProxy: trustProxy && /^\d+$/.test(trustProxy) ? Number(trustProxy) : trustProxy,
     webDir,
   });
 

@@ -2,7 +2,7 @@ import { and, asc, eq, gt } from 'drizzle-orm';
 
 import type { Database } from '@/db/client';
 import { invitation, member, organization, user } from '@/db/schema';
-import { primaryRole, type TeamRole } from '@/server/contracts/roles';
+import { primaryRole, roleAllows, type TeamRole } from '@/server/contracts/roles';
 import type { Me, TeamDetail } from '@/server/contracts/team';
 import { ApiError } from '@/server/http/errors';
 
@@ -35,31 +35,40 @@ export async function getTeamDetail(db: Database, teamId: string, myRole: TeamRo
     .innerJoin(user, eq(user.id, member.userId))
     .where(eq(member.organizationId, teamId))
     .orderBy(asc(user.name));
-  const invitations = await db
-    .select({
-      id: invitation.id,
-      email: invitation.email,
-      role: invitation.role,
-      expiresAt: invitation.expiresAt,
-      invitedBy: user.name,
-    })
-    .from(invitation)
-    .leftJoin(user, eq(user.id, invitation.inviterId))
-    .where(
-      and(
-        eq(invitation.organizationId, teamId),
-        eq(invitation.status, 'pending'),
-        gt(invitation.expiresAt, new Date()),
-      ),
-    )
-    .orderBy(asc(invitation.email));
+  const mayInvite = roleAllows(myRole, { invitation: ['create'] });
+  const mayCancel = roleAllows(myRole, { invitation: ['cancel'] });
+  // An invitation's id is what accepting it needs: shown to a role that cannot invite, it let
+  // an Observer take an Owner invitation for an address they then signed up with.
+  const invitations = !mayInvite
+    ? []
+    : await db
+        .select({
+          id: invitation.id,
+          email: invitation.email,
+          role: invitation.role,
+          expiresAt: invitation.expiresAt,
+          invitedBy: user.name,
+        })
+        .from(invitation)
+        .leftJoin(user, eq(user.id, invitation.inviterId))
+        .where(
+          and(
+            eq(invitation.organizationId, teamId),
+            eq(invitation.status, 'pending'),
+            gt(invitation.expiresAt, new Date()),
+          ),
+        )
+        .orderBy(asc(invitation.email));
   return {
     id: team.id,
     name: team.name,
     slug: team.slug,
     myRole,
     members: members.map((m) => ({ ...m, role: firstRole(m.role), joinedAt: m.joinedAt.toISOString() })),
-    invitations: invitations.map((i) => ({ ...i, role: firstRole(i.role), expiresAt: i.expiresAt.toISOString() })),
+    invitations: invitations
+      .map((i) => ({ ...i, role: firstRole(i.role), expiresAt: i.expiresAt.toISOString() }))
+      .filter((i) => i.role !== 'owner' || myRole === 'owner')
+      .map((i) => (mayCancel ? i : { ...i, id: null })),
   };
 }
 

@@ -6,9 +6,10 @@ import { createDatabase, type Database } from '@/db/client';
 import type { Broadcast } from '@/realtime/events';
 import { createApp } from '@/server/app';
 import { createAuth, type Auth } from '@/server/auth/auth';
+import type { AuthLimits } from '@/server/auth/gate';
 import { createSmtpMailer } from '@/server/auth/mailer';
 
-import { testSecret, uniqueEmail } from './test-server';
+import { roomyAuthLimits, testSecret, uniqueEmail, verificationLink } from './test-server';
 
 /** The origin the test app believes it is served from; clients send it as `Origin`. */
 export const testOrigin = 'http://127.0.0.1:3999';
@@ -16,13 +17,13 @@ export const testOrigin = 'http://127.0.0.1:3999';
 export type Sent = { event: string; teamId: string; payload: unknown };
 
 /** `createApp()` on the test database, without listening; broadcasts are recorded. */
-export function createTestApp(databaseUrl = inject('databaseUrl')) {
+export function createTestApp(databaseUrl = inject('databaseUrl'), authLimits: AuthLimits = roomyAuthLimits) {
   const db = createDatabase(databaseUrl, 4);
   const mailer = createSmtpMailer({ host: '127.0.0.1', port: inject('smtpPort'), from: 'test@cyclemoot.test' });
   const auth = createAuth({ db, baseURL: testOrigin, secret: testSecret, mailer });
   const sent: Sent[] = [];
   const broadcast: Broadcast = { toTeam: (teamId, event, payload) => void sent.push({ teamId, event, payload }) };
-  const app = createApp({ db, auth, broadcast });
+  const app = createApp({ db, auth, broadcast, origin: testOrigin, authLimits });
   return { app, db, auth, sent, close: () => db.$client.end() };
 }
 
@@ -35,9 +36,12 @@ export type TestUser = {
   cookie: string;
 };
 
+export const testPassword = 'correct-horse-battery';
+
 /**
- * Signs a new user up through the real auth routes; the agent keeps the session cookie.
- * `target` is the app (not listening) or the URL of a running server.
+ * Signs a new user up through the real auth routes and confirms the address by opening the
+ * link from the mail fake, as a person would; the agent keeps the session cookie that the
+ * link sets. `target` is the app (not listening) or the URL of a running server.
  */
 export async function signUp(
   target: Express | string,
@@ -45,9 +49,15 @@ export async function signUp(
   email = uniqueEmail(name.split(' ')[0].toLowerCase()),
 ): Promise<TestUser> {
   const agent = supertest.agent(target).set('Origin', typeof target === 'string' ? target : testOrigin);
-  const res = await agent.post('/api/auth/sign-up/email').send({ name, email, password: 'correct-horse-battery' });
+  const res = await agent.post('/api/auth/sign-up/email').send({ name, email, password: testPassword });
   if (res.status !== 200) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
-  const cookie = (res.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
+  const link = new URL(await verificationLink(email));
+  const verified = await agent.get(link.pathname + link.search);
+  const setCookie = verified.headers['set-cookie'] as unknown as string[] | undefined;
+  if (verified.status !== 302 || !setCookie) {
+    throw new Error(`confirming ${email} failed: ${verified.status} ${JSON.stringify(verified.body)}`);
+  }
+  const cookie = setCookie.map((c) => c.split(';')[0]).join('; ');
   return { agent, id: res.body.user.id, email, name, cookie };
 }
 

@@ -5,15 +5,25 @@ import path from 'node:path';
 import { chromium, type BrowserContext } from 'playwright-core';
 import { inject } from 'vitest';
 
+import { productionAuthLimits, type AuthLimits } from '@/server/auth/gate';
 import { startServer } from '@/server/index';
 import { chromiumPath } from '@/server/ops/chromium';
 import { webDir } from '@/server/ops/web-build';
 
 export const testSecret = 'test-secret-for-sessions-0123456789abcdef';
 
+/**
+ * The suites sign dozens of people up from loopback within a minute; the security tests
+ * check the production limits on an app of their own.
+ */
+export const roomyAuthLimits: AuthLimits = Object.fromEntries(
+  Object.entries(productionAuthLimits).map(([name, rule]) => [name, { ...rule, points: rule.points * 1000 }]),
+) as AuthLimits;
+
 /** A real server on a free loopback port: test database, mail fake, the built web app. */
-export async function startTestServer() {
+export async function startTestServer({ authLimits = roomyAuthLimits }: { authLimits?: AuthLimits } = {}) {
   const server = await startServer({
+    authLimits,
     databaseUrl: inject('databaseUrl'),
     secret: testSecret,
     smtp: { host: '127.0.0.1', port: inject('smtpPort') },
@@ -32,15 +42,27 @@ export async function mailsTo(address: string): Promise<Mail[]> {
   return all.filter((m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase()));
 }
 
-/** Waits until a mail for `address` arrives (SMTP delivery is asynchronous). */
-export async function waitForMail(address: string, timeoutMs = 10_000): Promise<Mail> {
+/**
+ * Waits until a mail for `address` arrives (SMTP delivery is asynchronous), the newest one
+ * whose subject matches `subject` when given.
+ */
+export async function waitForMail(address: string, subject?: RegExp, timeoutMs = 10_000): Promise<Mail> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    const mails = await mailsTo(address);
+    const mails = (await mailsTo(address)).filter((m) => !subject || subject.test(m.subject));
     if (mails.length) return mails[mails.length - 1];
-    if (Date.now() > deadline) throw new Error(`No mail for ${address} within ${timeoutMs} ms`);
-    await new Promise((r) => setTimeout(r, 100));
+    if (Date.now() > deadline)
+      throw new Error(`No mail${subject ? ` like ${subject}` : ''} for ${address} within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 40));
   }
+}
+
+/** The address-confirmation link of the newest confirmation mail to `address`. */
+export async function verificationLink(address: string): Promise<string> {
+  const mail = await waitForMail(address, /^Confirm your e-mail address/);
+  const link = mail.text.match(/https?:\/\/\S+\/api\/auth\/verify-email\?\S+/)?.[0];
+  if (!link) throw new Error(`The confirmation mail to ${address} carries no link:\n${mail.text}`);
+  return link;
 }
 
 /** Debian's Chromium through playwright-core, headless, with its own throwaway profile. */
