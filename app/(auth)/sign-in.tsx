@@ -3,6 +3,6 @@ import { useLocalSearchParams } from 'expo-router';
 import { SignInScreen } from '@/components/screens/auth/sign-in-screen';
 
 export default function SignInRoute() {
-  const { next } = useLocalSearchParams<{ next?: string }>();
-  return <SignInScreen next={next} />;
+  const { next, error } = useLocalSearchParams<{ next?: string; error?: string }>();
+  return <SignInScreen next={next} linkError={error} />;
 }

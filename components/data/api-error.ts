@@ -59,12 +59,23 @@ export function apiErrorFromBody(status: number, body: unknown): ApiError {
   return new ApiError({ status, code: status === 0 ? 'network' : 'http_' + status, message: defaultMessage(status) });
 }
 
-/** better-auth's client answers `{ data, error }` with `error = { code?, message?, status }`. */
+/**
+ * better-auth's client answers `{ data, error }` with `error = { code?, message?, status }`;
+ * when the server's gate refused the request before better-auth saw it (a field, a limit),
+ * `error` carries our envelope's `error` instead.
+ */
 export function apiErrorFromAuth(
-  error: { code?: string; message?: string; status?: number; statusText?: string },
+  error: {
+    code?: string;
+    message?: string;
+    status?: number;
+    statusText?: string;
+    error?: ErrorEnvelope['error'];
+  },
   field?: string,
 ): ApiError {
   const status = error.status ?? 400;
+  if (error.error && typeof error.error === 'object') return apiErrorFromBody(status, { error: error.error });
   const code = (error.code ?? '').toUpperCase();
   const message = authWording[code] ?? ourWords(error.message || error.statusText || defaultMessage(status));
   return new ApiError({ status, code: (code || 'auth_error').toLowerCase(), message: sentence(message), field });
@@ -73,6 +84,9 @@ export function apiErrorFromAuth(
 /** better-auth's failures a user can meet, said in our words (Team, e-mail, the roles). */
 const authWording: Readonly<Record<string, string>> = {
   INVALID_EMAIL_OR_PASSWORD: 'Wrong e-mail or password.',
+  EMAIL_NOT_VERIFIED: 'Confirm your e-mail address first: we have just sent a new link to it. Open it to sign in.',
+  EMAIL_VERIFICATION_REQUIRED_BEFORE_ACCEPTING_OR_REJECTING_INVITATION:
+    'Confirm your e-mail address first, through the link we mailed you, then accept the invitation.',
   USER_ALREADY_EXISTS_USE_ANOTHER_EMAIL:
     'An account with this e-mail already exists. Sign in instead, or use another address.',
   ORGANIZATION_ALREADY_EXISTS: 'A Team with this name already exists.',

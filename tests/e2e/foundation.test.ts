@@ -6,7 +6,13 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { repoRoot } from '@/server/ops/paths';
 import { webDir } from '@/server/ops/web-build';
-import { launchBrowser, startTestServer, uniqueEmail, waitForMail } from '@/tests/helpers/test-server';
+import {
+  launchBrowser,
+  startTestServer,
+  uniqueEmail,
+  verificationLink,
+  waitForMail,
+} from '@/tests/helpers/test-server';
 
 /**
  * The whole first journey in a real browser, on a phone and on a wide screen: sign up,
@@ -48,6 +54,16 @@ async function signUp(page: Page, name: string, email: string) {
   await byTestId(page, 'sign-up-email').fill(email);
   await byTestId(page, 'sign-up-password').fill(password);
   await byTestId(page, 'sign-up-button').click();
+  await confirmAddress(page, email);
+}
+
+/** Sign-up ends at "check your inbox"; the mailed link confirms the address and signs in. */
+async function confirmAddress(page: Page, email: string) {
+  await byTestId(page, 'sign-up-check-inbox').waitFor();
+  expect(await byTestId(page, 'sign-up-check-inbox').textContent()).toContain(email);
+  const link = await verificationLink(email);
+  expect(link.startsWith(`${server.baseURL}/api/auth/verify-email?`)).toBe(true);
+  await page.goto(link);
 }
 
 /** Opens the invitation link from the mailbox in `page`, signs up as the invitee, accepts. */
@@ -57,7 +73,7 @@ async function acceptByMail(
   name: string,
   expect_: { teamName: string; inviter: string; role: string; shot: string },
 ) {
-  const mail = await waitForMail(email);
+  const mail = await waitForMail(email, /invited you/);
   expect(mail.subject).toContain(expect_.teamName);
   const link = mail.text.match(/https?:\/\/\S+\/invitation\/[\w-]+/)?.[0];
   expect(link, 'the mail carries an invitation link').toBeTruthy();
@@ -76,6 +92,9 @@ async function acceptByMail(
   await byTestId(page, 'sign-up-name').fill(name);
   await byTestId(page, 'sign-up-password').fill(password);
   await byTestId(page, 'sign-up-button').click();
+  // Confirmed and signed in by the mailed link, back on the invitation to accept it.
+  await confirmAddress(page, email);
+  await byTestId(page, 'accept-invitation-button').click();
   await byTestId(page, 'reviews-screen').waitFor();
   expect(new URL(page.url()).pathname).toBe('/');
   expect(await byTestId(page, 'current-team-name').textContent()).toBe(expect_.teamName);
@@ -87,6 +106,7 @@ describe.each(viewports)('first journey at $name size', ({ name: viewport, size 
   const ownerEmail = uniqueEmail(`owner-${viewport}`);
   const engineerEmail = uniqueEmail(`engineer-${viewport}`);
   const observerEmail = uniqueEmail(`observer-${viewport}`);
+  const pendingOwnerEmail = uniqueEmail(`second-owner-${viewport}`);
   const teamName = `Fjellvik peaking ${viewport} ${Date.now().toString(36)}`;
   const reviewName = 'Unit 2 peaker — cycle choice';
   const renamed = 'Unit 2 peaker — final cycle choice';
@@ -235,17 +255,26 @@ describe.each(viewports)('first journey at $name size', ({ name: viewport, size 
     });
     await expect.poll(() => byTestId(guestPage, 'review-name').allTextContents()).toEqual([renamed]);
     expect(await byTestId(guestPage, 'new-review-button').count()).toBe(0);
+    // One invitation stays pending (a second Owner), for the Observer not to see.
+    await byTestId(page, 'invite-email-input').fill(pendingOwnerEmail);
+    await byTestId(page, 'invite-role-owner').click();
+    await byTestId(page, 'invite-send-button').click();
+    await expect.poll(() => byTestId(page, 'invitation-count').textContent()).toBe('1 invitation');
     expect(await guestPage.locator('[data-testid^="review-rename-"]').count()).toBe(0);
     expect(await guestPage.locator('[data-testid^="review-archive-"]').count()).toBe(0);
     await byTestId(guestPage, 'nav-team').click();
     await byTestId(guestPage, 'member-list').waitFor();
     expect(await byTestId(guestPage, 'invite-form').count()).toBe(0);
+    // Pending invitations are the Owner's business: an Observer is shown none of them.
+    expect(await byTestId(guestPage, 'invitation-list').count()).toBe(0);
+    expect(await byTestId(guestPage, 'invitation-count').count()).toBe(0);
     await snap(guestPage, viewport, '10-observer-team');
 
-    // The Owner's Team page now lists three members and no pending invitations.
+    // The Owner's Team page now lists three members and the one invitation still pending.
     await page.reload();
     await expect.poll(() => byTestId(page, 'member-count').textContent()).toBe('3 members');
-    expect(await byTestId(page, 'invitation-count').textContent()).toBe('0 invitations');
+    expect(await byTestId(page, 'invitation-count').textContent()).toBe('1 invitation');
+    expect(await byTestId(page, `invitation-${pendingOwnerEmail}`).textContent()).toContain('Owner');
     expect(await byTestId(page, `member-role-${observerEmail}`).textContent()).toBe('Observer');
   });
 

@@ -1,5 +1,5 @@
 import { useRouter } from 'expo-router';
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { authClient } from '@/components/auth/auth-client';
@@ -31,6 +31,10 @@ type Mode = 'sign-up' | 'sign-in';
 export function InvitationScreen({ invitationId }: { invitationId: string }) {
   const invitation = useInvitationQuery(invitationId);
   const session = authClient.useSession();
+  // better-auth refetches the session after a sign-up; showing "loading" then would unmount
+  // the form and lose its "check your inbox" step.
+  const sessionKnown = useRef(false);
+  if (!session.isPending) sessionKnown.current = true;
 
   if (invitation.error) {
     const missing = isApiError(invitation.error) && invitation.error.status === 404;
@@ -47,7 +51,7 @@ export function InvitationScreen({ invitationId }: { invitationId: string }) {
       </AuthFrame>
     );
   }
-  if (!invitation.data || session.isPending) {
+  if (!invitation.data || !sessionKnown.current) {
     return (
       <AuthFrame title="Invitation" testID="invitation-screen">
         <LoadingState label="Reading the invitation…" />
@@ -163,6 +167,8 @@ function InvitationAction({ inv, signedInEmail }: { inv: InvitationSummary; sign
   }
 
   const onDone = () => acceptAndEnter().catch(() => {});
+  // The confirmation link of a new account comes back here, signed in, to accept.
+  const here = `/invitation/${inv.id}`;
   return (
     <View style={styles.block}>
       <Choice<Mode>
@@ -177,9 +183,9 @@ function InvitationAction({ inv, signedInEmail }: { inv: InvitationSummary; sign
       />
       {acceptError}
       {mode === 'sign-up' ? (
-        <SignUpForm initialEmail={inv.email} onSignedUp={onDone} />
+        <SignUpForm initialEmail={inv.email} returnTo={here} />
       ) : (
-        <SignInForm initialEmail={inv.email} onSignedIn={onDone} />
+        <SignInForm initialEmail={inv.email} returnTo={here} onSignedIn={onDone} />
       )}
     </View>
   );

@@ -4,7 +4,8 @@ import { StyleSheet, View, type TextInput } from 'react-native';
 
 import { authCall } from '@/components/auth/auth-call';
 import { authClient } from '@/components/auth/auth-client';
-import { emailField, signInPassword } from '@/components/auth/credentials';
+import { confirmationLanding, emailField, signInPassword } from '@/components/auth/credentials';
+import { isApiError } from '@/components/data/api-error';
 import { Button } from '@/components/ui/button';
 import { emailInput, Field, FormError } from '@/components/ui/field';
 import { messageFor } from '@/components/ui/message-for';
@@ -15,9 +16,12 @@ import { useField } from '@/components/ui/use-field';
 /** E-mail and password; a wrong pair is one message for the form (never saying which part was wrong). */
 export function SignInForm({
   initialEmail = '',
+  returnTo,
   onSignedIn,
 }: {
   initialEmail?: string;
+  /** Where a new confirmation link leads, when the address is not confirmed yet. */
+  returnTo: string;
   onSignedIn: () => void | Promise<void>;
 }) {
   const qc = useQueryClient();
@@ -33,7 +37,16 @@ export function SignInForm({
     setBusy(true);
     setError(null);
     try {
-      await authCall(authClient.signIn.email({ email: email.value.trim(), password: password.value }));
+      const address = email.value.trim().toLowerCase();
+      try {
+        await authCall(authClient.signIn.email({ email: address, password: password.value }));
+      } catch (e) {
+        // Right password, address not confirmed yet: a fresh link that leads back here.
+        if (isApiError(e) && e.code === 'email_not_verified') {
+          await authClient.sendVerificationEmail({ email: address, callbackURL: confirmationLanding(returnTo) });
+        }
+        throw e;
+      }
       qc.clear();
       await onSignedIn();
     } catch (e) {

@@ -1,4 +1,4 @@
-import { Redirect, useRouter } from 'expo-router';
+import { Redirect } from 'expo-router';
 
 import { authClient } from '@/components/auth/auth-client';
 import { safeNext } from '@/components/auth/credentials';
@@ -8,7 +8,6 @@ import { SignUpForm } from './sign-up-form';
 import { OtherWayIn } from './text-link';
 
 export function SignUpScreen({ next }: { next?: string }) {
-  const router = useRouter();
   const session = authClient.useSession();
   const target = safeNext(next);
   if (session.data) return <Redirect href={target as never} />;
@@ -18,7 +17,7 @@ export function SignUpScreen({ next }: { next?: string }) {
       lead="Then start a Team, or accept an invitation from one."
       testID="sign-up-screen"
     >
-      <SignUpForm onSignedUp={() => router.replace(target as never)} />
+      <SignUpForm returnTo={target} />
       <OtherWayIn prompt="Already have an account?" path="/sign-in" next={next} label="Sign in" testID="to-sign-in" />
     </AuthFrame>
   );

@@ -25,6 +25,8 @@ export function InvitationRow({
   const t = useTheme();
   const cancel = useCancelInvitationMutation(teamId);
   const message = useMessage();
+  // Null where the server hides it: this viewer may not cancel the invitation.
+  const invitationId = invitation.id;
   return (
     <View
       style={[styles.row, !first && { borderTopWidth: 1, borderTopColor: t.hairline }]}
@@ -40,7 +42,7 @@ export function InvitationRow({
         </Text>
       </View>
       <Badge label={roleLabels[invitation.role]} />
-      {canCancel ? (
+      {canCancel && invitationId ? (
         <Button
           label="Cancel"
           accessibilityLabel={`Cancel the invitation to ${invitation.email}`}
@@ -49,7 +51,7 @@ export function InvitationRow({
           busy={cancel.isPending}
           onPress={() =>
             cancel.mutate(
-              { invitationId: invitation.id },
+              { invitationId },
               {
                 onSuccess: () => message.show(`Invitation to ${invitation.email} cancelled.`),
                 onError: message.showError,

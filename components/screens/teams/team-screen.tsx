@@ -66,29 +66,33 @@ export function TeamScreen() {
         ))}
       </Card>
 
-      <View style={styles.section}>
-        <Heading level={2}>Pending invitations</Heading>
-        <Text size="small" tone="muted" testID="invitation-count">
-          {count(data.invitations.length, 'invitation', 'invitations')}
-        </Text>
-      </View>
-      {data.invitations.length === 0 ? (
-        <Text tone="muted" testID="no-invitations">
-          {canInvite ? 'No invitations waiting. Invite someone above.' : 'No invitations waiting.'}
-        </Text>
-      ) : (
-        <Card style={styles.list} testID="invitation-list">
-          {data.invitations.map((invitation, i) => (
-            <InvitationRow
-              key={invitation.id}
-              teamId={data.id}
-              invitation={invitation}
-              canCancel={canCancel}
-              first={i === 0}
-            />
-          ))}
-        </Card>
-      )}
+      {canInvite ? (
+        <>
+          <View style={styles.section}>
+            <Heading level={2}>Pending invitations</Heading>
+            <Text size="small" tone="muted" testID="invitation-count">
+              {count(data.invitations.length, 'invitation', 'invitations')}
+            </Text>
+          </View>
+          {data.invitations.length === 0 ? (
+            <Text tone="muted" testID="no-invitations">
+              No invitations waiting. Invite someone above.
+            </Text>
+          ) : (
+            <Card style={styles.list} testID="invitation-list">
+              {data.invitations.map((invitation, i) => (
+                <InvitationRow
+                  key={invitation.id ?? invitation.email}
+                  teamId={data.id}
+                  invitation={invitation}
+                  canCancel={canCancel}
+                  first={i === 0}
+                />
+              ))}
+            </Card>
+          )}
+        </>
+      ) : null}
     </Screen>
   );
 }
