@@ -5,10 +5,21 @@ import { organization } from 'better-auth/plugins';
 import type { Database } from '@/db/client';
 import * as schema from '@/db/schema';
 import { clientAddressHeader } from '@/server/auth/client-address';
-import { recordAuthError } from '@/server/auth/gate';
 import type { Mailer } from '@/server/auth/mailer';
 import { accountExistsMail, invitationMail, verificationMail } from '@/server/auth/mails';
 import { accessControl, roles } from '@/server/contracts/roles';
+
+/** better-auth's log lines, kept short and free of query parameters. */
+function logAuthLine(level: 'debug' | 'info' | 'warn' | 'error', message: string, ...args: unknown[]) {
+  if (level === 'debug' || level === 'info') return;
+  const details = args.map((arg) => {
+    if (!(arg instanceof Error)) return typeof arg === 'string' ? arg : '';
+    const cause = (arg as { cause?: { code?: unknown; message?: unknown } }).cause;
+    const first = arg.message.split('\n')[0].replace(/^Failed query: .*/, 'a database query failed');
+    return `${arg.name}: ${first}${cause?.code ? ` (${String(cause.code)})` : ''}`;
+  });
+  console[level](`[auth] ${message} ${details.join(' ')}`.trim());
+}
 
 export type AuthOptions = {
   db: Database;
@@ -64,8 +75,10 @@ export function createAuth({ db, baseURL, secret, mailer }: AuthOptions) {
     // Limits live in server/auth/gate.ts, per address and per account: better-auth's own are
     // one bucket per path for everyone behind one address.
     rateLimit: { enabled: false },
-    // The gate reads these back when better-auth answers 500 (a lost database, the owner rule).
-    onAPIError: { onError: recordAuthError },
+    // Unexpected failures (a lost database, the owner rule) reach the gate as thrown errors.
+    onAPIError: { throw: true },
+    // One line per failure, without the failed query's parameters (a session token is one).
+    logger: { log: logAuthLine },
     plugins: [
       organization({
         ac: accessControl,

@@ -1,5 +1,3 @@
-import { AsyncLocalStorage } from 'node:async_hooks';
-
 import { getRequest, setResponse } from 'better-call/node';
 import express, { Router, type Request, type Response } from 'express';
 import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
@@ -21,7 +19,6 @@ import {
   verifyEmailQuery,
 } from '@/server/contracts/auth';
 import { createTeamInput } from '@/server/contracts/team';
-import { isDatabaseUnavailable } from '@/server/http/database-errors';
 import { ApiError, parse } from '@/server/http/errors';
 
 /** A limit: at most `points` requests in `seconds`. */
@@ -103,14 +100,6 @@ const endpoints: Record<string, Endpoint> = {
   'POST /organization/update-member-role': { body: updateMemberRoleInput },
 };
 
-/** Errors better-auth met during one request, read back when it answers 500. */
-const unexpected = new AsyncLocalStorage<unknown[]>();
-
-/** Hands better-auth's unhandled errors to the request being served (see `createAuth`). */
-export function recordAuthError(error: unknown) {
-  unexpected.getStore()?.push(error);
-}
-
 function minutes(ms: number) {
   const m = Math.ceil(ms / 60_000);
   return m <= 1 ? 'a minute' : `${m} minutes`;
@@ -180,15 +169,19 @@ export function authGate({
     }
     req.headers[clientAddressHeader] = address;
 
-    const errors: unknown[] = [];
-    const response = await unexpected.run(errors, () => auth.handler(getRequest({ request: req, base: origin })));
-    if (response.status >= 500) {
-      if (errors.some(isTeamOwnerRuleViolation)) {
+    // better-auth throws what it did not expect (`onAPIError.throw`): the owner rule of the
+    // database becomes a 409, and the error handler answers a lost database with 503.
+    let response: globalThis.Response;
+    try {
+      response = await auth.handler(getRequest({ request: req, base: origin }));
+    } catch (error) {
+      if (isTeamOwnerRuleViolation(error)) {
         throw new ApiError(409, 'team_needs_owner', 'A Team must keep at least one Owner.');
       }
-      if (errors.some(isDatabaseUnavailable)) throw errors.find(isDatabaseUnavailable);
-      throw errors[0] ?? new Error(`better-auth answered ${response.status} for ${req.method} ${req.path}`);
+      throw error;
     }
+    if (response.status >= 500)
+      throw new Error(`better-auth answered ${response.status} for ${req.method} ${req.path}`);
     if (req.path === '/sign-in/email' && response.status === 200) {
       await limiters.signInPerAccount.delete(emailOf(req.body as Record<string, unknown>).toLowerCase());
     }

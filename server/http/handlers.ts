@@ -4,6 +4,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 
 import type { ErrorEnvelope } from '@/server/contracts/errors';
 
+import { isDatabaseUnavailable } from './database-errors';
 import { ApiError } from './errors';
 
 /** Gives every request an id, echoed in `x-request-id` and in error envelopes. */
@@ -18,6 +19,9 @@ export const requestId: RequestHandler = (req, res, next) => {
 export const apiNotFound: RequestHandler = (req) => {
   throw new ApiError(404, 'route_not_found', `No API route ${req.method} ${req.path}.`);
 };
+
+export const databaseUnavailableMessage =
+  'The database is not reachable right now; nothing was changed. Try again in a moment.';
 
 type BodyParserError = Error & { type?: string; status?: number; limit?: number };
 
@@ -47,6 +51,14 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (typeof parserError.status === 'number' && parserError.status >= 400 && parserError.status < 500) {
     send(parserError.status, { code: 'bad_request', message: parserError.message });
+    return;
+  }
+  if (isDatabaseUnavailable(err)) {
+    // The pool reconnects by itself once Postgres is back; a transaction that failed to
+    // reach it committed nothing, so the answer can say so.
+    console.error(`[http] ${req.method} ${req.originalUrl}: the database is not reachable (request ${requestId})`);
+    res.setHeader('Retry-After', '5');
+    send(503, { code: 'database_unavailable', message: databaseUnavailableMessage });
     return;
   }
   console.error(`[http] ${req.method} ${req.originalUrl} failed (request ${requestId}):`, err);

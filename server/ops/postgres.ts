@@ -8,6 +8,7 @@ import {
   mkdirSync,
   readdirSync,
   readFileSync,
+  rmSync,
   writeFileSync,
 } from 'node:fs';
 import path from 'node:path';
@@ -76,11 +77,16 @@ function giveToPostgres(target: string) {
 /**
  * Makes sure the project's own PostgreSQL cluster exists and runs on 127.0.0.1:`port`,
  * creating it on first use (data directory under the state folder) and reusing it after.
+ * `name` picks another cluster beside it (a test that stops its database uses its own).
  */
-export async function ensureCluster(port = Number(process.env.CYCLEMOOT_PG_PORT ?? defaultPgPort)): Promise<Cluster> {
+export async function ensureCluster(
+  port = Number(process.env.CYCLEMOOT_PG_PORT ?? defaultPgPort),
+  { name = 'pg' }: { name?: string } = {},
+): Promise<Cluster> {
+  if (!/^[a-z][a-z0-9-]*$/.test(name)) throw new Error(`Bad cluster name: ${name}`);
   const base = stateDir();
-  const dataDir = path.join(base, 'pg');
-  const socketDir = path.join(base, 'pg-run');
+  const dataDir = path.join(base, name);
+  const socketDir = path.join(base, `${name}-run`);
   const passwordFile = path.join(base, 'pg-password');
   const bin = findBinDir() ?? installPostgres();
 
@@ -125,7 +131,7 @@ export async function ensureCluster(port = Number(process.env.CYCLEMOOT_PG_PORT 
 
   const status = runPg(bin, 'pg_ctl', ['status', '-D', dataDir], { allowFail: true });
   if (status.status !== 0) {
-    const logFile = path.join(base, 'pg.log');
+    const logFile = path.join(base, `${name}.log`);
     if (!existsSync(logFile)) writeFileSync(logFile, '');
     chmodSync(logFile, 0o666);
     const started = runPg(
@@ -179,6 +185,24 @@ async function waitForConnection(url: string, port: number, dataDir: string) {
     }
   }
   throw new Error(`PostgreSQL is not reachable on 127.0.0.1:${port} (data directory ${dataDir}): ${String(lastError)}`);
+}
+
+/**
+ * Stops a cluster (`fast`: open connections are ended, as an operator's restart does).
+ * `ensureCluster` with the same port and name starts it again.
+ */
+export function stopCluster(cluster: Cluster) {
+  const bin = findBinDir();
+  if (!bin) throw new Error('PostgreSQL server programs are missing.');
+  runPg(bin, 'pg_ctl', ['stop', '-D', cluster.dataDir, '-m', 'fast', '-w', '-t', '60']);
+}
+
+/** Stops a cluster if it runs and deletes its data directory. */
+export function removeCluster(cluster: Cluster) {
+  const bin = findBinDir();
+  if (bin) runPg(bin, 'pg_ctl', ['stop', '-D', cluster.dataDir, '-m', 'immediate', '-w'], { allowFail: true });
+  rmSync(cluster.dataDir, { recursive: true, force: true });
+  rmSync(`${cluster.dataDir}-run`, { recursive: true, force: true });
 }
 
 /** Creates `name` when missing; with `fresh`, drops it first (the test database). */

@@ -1,10 +1,10 @@
-import { createServer, type AddressInfo } from 'node:net';
-
 import type { TestProject } from 'vitest/node';
 
 import { startMailFake, type MailFake } from '@/server/ops/mail-fake';
 import { migrateDatabase } from '@/server/ops/migrate';
 import { dropTestDatabases, ensureCluster, ensureDatabase } from '@/server/ops/postgres';
+
+import { freePort } from './ports';
 
 let mail: MailFake | undefined;
 
@@ -15,17 +15,6 @@ function isAlive(pid: number) {
   } catch {
     return false;
   }
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const { port } = probe.address() as AddressInfo;
-      probe.close(() => resolve(port));
-    });
-  });
 }
 
 /**
