@@ -2,12 +2,14 @@ import type { Server as HttpServer } from 'node:http';
 
 import { fromNodeHeaders } from 'better-auth/node';
 import { eq } from 'drizzle-orm';
+import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
 import { Server } from 'socket.io';
 import type { z } from 'zod';
 
 import type { Database } from '@/db/client';
 import { member } from '@/db/schema';
 import type { Auth } from '@/server/auth/auth';
+import { isDatabaseUnavailable } from '@/server/http/database-errors';
 import { ApiError } from '@/server/http/errors';
 import { requireTeam } from '@/server/http/guard';
 
@@ -23,8 +25,38 @@ import {
 type SocketData = { user: { id: string; name: string; email: string } };
 export type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
 
+/** A limit: at most `points` in `seconds`. */
+export type SocketLimitRule = { points: number; seconds: number };
+
+export type SocketLimits = {
+  /** Events one socket may send; past it they are refused, past twice it the socket is closed. */
+  eventsPerSocket: SocketLimitRule;
+  /** Events one user may send over all their sockets (tabs, phones). */
+  eventsPerUser: SocketLimitRule;
+  /** Connections one user may open (a reconnecting client needs a few a minute). */
+  connectionsPerUser: SocketLimitRule;
+};
+
+/**
+ * A live board sends a handful of events per click; a person never needs more than a few
+ * dozen a second. A flood is answered from memory, before any database work.
+ */
+export const productionSocketLimits: SocketLimits = {
+  eventsPerSocket: { points: 40, seconds: 2 },
+  eventsPerUser: { points: 120, seconds: 2 },
+  connectionsPerUser: { points: 60, seconds: 60 },
+};
+
+const limiter = ({ points, seconds }: SocketLimitRule) => new RateLimiterMemory({ points, duration: seconds });
+
+const databaseUnavailable = {
+  code: 'database_unavailable',
+  message: 'The database is not reachable right now; nothing was changed. Try again in a moment.',
+};
+
 function failure(error: unknown) {
   if (error instanceof ApiError) return { error: { code: error.code, message: error.message } };
+  if (isDatabaseUnavailable(error)) return { error: databaseUnavailable };
   console.error('[realtime] handler failed:', error);
   return { error: { code: 'internal', message: 'Something went wrong on the server.' } };
 }
@@ -50,26 +82,72 @@ function handle<P>(schema: z.ZodType<P>, run: (payload: P) => Promise<void>) {
 /** Attaches socket.io to the HTTP server: session from the cookie, rooms per team. */
 export function attachRealtime(
   httpServer: HttpServer,
-  { db, auth, origin }: { db: Database; auth: Auth; origin: string },
+  {
+    db,
+    auth,
+    origin,
+    limits = productionSocketLimits,
+  }: { db: Database; auth: Auth; origin: string; limits?: SocketLimits },
 ) {
   const io: RealtimeServer = new Server(httpServer, {
     cors: { origin, credentials: true },
     maxHttpBufferSize: 64 * 1024,
     serveClient: false,
+    // `cors` covers polling only; a WebSocket upgrade carries the cookie from any page, so
+    // every request of the handshake must come from the app's own origin.
+    allowRequest: (req, callback) => {
+      if (req.headers.origin === origin) callback(null, true);
+      else callback('foreign_origin', false);
+    },
   });
+  const socketEvents = limiter(limits.eventsPerSocket);
+  const userEvents = limiter(limits.eventsPerUser);
+  const userConnections = limiter(limits.connectionsPerUser);
 
   io.use(async (socket, next) => {
     try {
       const session = await auth.api.getSession({ headers: fromNodeHeaders(socket.request.headers) });
       if (!session) return next(new Error('unauthorized'));
+      try {
+        await userConnections.consume(session.user.id);
+      } catch {
+        return next(new Error('rate_limited'));
+      }
       socket.data.user = { id: session.user.id, name: session.user.name, email: session.user.email };
       next();
     } catch (error) {
-      next(error as Error);
+      // The client learns the kind of failure, never the driver's message.
+      if (isDatabaseUnavailable(error)) return next(new Error('database_unavailable'));
+      console.error('[realtime] handshake failed:', error);
+      next(new Error('internal'));
     }
   });
 
   io.on('connection', (socket) => {
+    // Every event is counted before its handler runs; refused events are answered on their
+    // ack, and a socket that keeps sending past twice its allowance is closed.
+    socket.use((packet, next) => {
+      const ack = packet[packet.length - 1];
+      const refuse = (seconds: number) => {
+        if (typeof ack === 'function') {
+          (ack as Ack)({
+            error: { code: 'rate_limited', message: `Too many events; wait ${seconds} s and try again.` },
+          });
+        }
+      };
+      Promise.all([socketEvents.consume(socket.id), userEvents.consume(socket.data.user.id)]).then(
+        () => next(),
+        (limited: unknown) => {
+          if (!(limited instanceof RateLimiterRes)) return next(limited as Error);
+          refuse(Math.ceil(limited.msBeforeNext / 1000));
+          if (socket.connected && limited.consumedPoints > 2 * limits.eventsPerSocket.points) {
+            console.warn(`[realtime] closing a socket of user ${socket.data.user.id}: event flood`);
+            socket.disconnect(true);
+          }
+        },
+      );
+    });
+
     socket.on(
       'team:join',
       handle(teamRoomPayload, async ({ teamId }) => {

@@ -3,7 +3,7 @@ import type { AddressInfo } from 'node:net';
 
 import { createDatabase } from '@/db/client';
 import type { Broadcast } from '@/realtime/events';
-import { attachRealtime } from '@/realtime/server';
+import { attachRealtime, type SocketLimits } from '@/realtime/server';
 import { createApp } from '@/server/app';
 import { createAuth } from '@/server/auth/auth';
 import type { AuthLimits } from '@/server/auth/gate';
@@ -22,6 +22,7 @@ export type ServerConfig = {
   /** Express `trust proxy` (which proxies may name the client); none by default. */
   trustProxy?: boolean | number | string;
   authLimits?: AuthLimits;
+  socketLimits?: SocketLimits;
 };
 
 export type RunningServer = { url: string; close(): Promise<void> };
@@ -54,7 +55,7 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
     webDir: config.webDir,
   });
   httpServer.on('request', app);
-  const realtime = attachRealtime(httpServer, { db, auth, origin });
+  const realtime = attachRealtime(httpServer, { db, auth, origin, limits: config.socketLimits });
   target = realtime.broadcast;
 
   return {

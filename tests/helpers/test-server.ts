@@ -5,6 +5,7 @@ import path from 'node:path';
 import { chromium, type BrowserContext } from 'playwright-core';
 import { inject } from 'vitest';
 
+import type { SocketLimits } from '@/realtime/server';
 import { productionAuthLimits, type AuthLimits } from '@/server/auth/gate';
 import { startServer } from '@/server/index';
 import { chromiumPath } from '@/server/ops/chromium';
@@ -21,10 +22,15 @@ export const roomyAuthLimits: AuthLimits = Object.fromEntries(
 ) as AuthLimits;
 
 /** A real server on a free loopback port: test database, mail fake, the built web app. */
-export async function startTestServer({ authLimits = roomyAuthLimits }: { authLimits?: AuthLimits } = {}) {
+export async function startTestServer({
+  authLimits = roomyAuthLimits,
+  socketLimits,
+  databaseUrl = inject('databaseUrl'),
+}: { authLimits?: AuthLimits; socketLimits?: SocketLimits; databaseUrl?: string } = {}) {
   const server = await startServer({
     authLimits,
-    databaseUrl: inject('databaseUrl'),
+    socketLimits,
+    databaseUrl,
     secret: testSecret,
     smtp: { host: '127.0.0.1', port: inject('smtpPort') },
     port: 0,

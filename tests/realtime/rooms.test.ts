@@ -16,7 +16,7 @@ const signUp = (name: string) => signUpAt(server.baseURL, name);
 function open(cookie?: string): Promise<Client> {
   const socket: Client = connect(server.baseURL, {
     transports: ['websocket'],
-    extraHeaders: cookie ? { cookie } : {},
+    extraHeaders: cookie ? { cookie, origin: server.baseURL } : { origin: server.baseURL },
     reconnection: false,
   });
   sockets.push(socket);
