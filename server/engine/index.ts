@@ -19,7 +19,22 @@ export type {
 } from './cycles/types';
 export { MAX_SWEEP_POINTS, SWEEP_PARAMETERS } from './cycles/sweep';
 export type { SweepFigures, SweepInput, SweepOptimum, SweepParameter, SweepPoint, SweepResult } from './cycles/sweep';
-export { MAX_STAGES } from './cycles/resolve-input';
+export {
+  DEFAULT_INTERCOOLER_PRESSURE_LOSS,
+  DEFAULT_REHEATER_PRESSURE_LOSS,
+  MAX_AMBIENT_PRESSURE_KPA,
+  MAX_ELEVATION_M,
+  MAX_FUEL_TEMPERATURE_K,
+  MAX_NET_POWER_KW,
+  MAX_PRESSURE_RATIO,
+  MAX_STAGES,
+  MAX_TEMPERATURE_K,
+  MIN_AMBIENT_PRESSURE_KPA,
+  MIN_ELEVATION_M,
+  MIN_FUEL_TEMPERATURE_K,
+  MIN_SWEEP_POINTS,
+  MIN_TEMPERATURE_K,
+} from './input-limits';
 
 /**
  * Evaluates one cycle. Results per kg of compressor inlet air, states in flow order, T-s

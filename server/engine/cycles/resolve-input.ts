@@ -1,12 +1,22 @@
 import { EngineInputError } from '../errors';
-import { ISA_MAX_ELEVATION_M, ISA_MIN_ELEVATION_M, isaPressureKPa } from '../properties/isa-atmosphere';
-import { POLYNOMIAL_MAX_K as DATA_MAX_K, POLYNOMIAL_MIN_K as DATA_MIN_K } from '../properties/nasa-species';
+import * as limits from '../input-limits';
+import { isaPressureKPa } from '../properties/isa-atmosphere';
 import type { CycleInput, WorkingFluid } from './types';
 
-export const MAX_STAGES = 100;
 // Local copies: an imported binding is a getter once transpiled, read on every check.
-const POLYNOMIAL_MIN_K = DATA_MIN_K;
-const POLYNOMIAL_MAX_K = DATA_MAX_K;
+const POLYNOMIAL_MIN_K = limits.MIN_TEMPERATURE_K;
+const POLYNOMIAL_MAX_K = limits.MAX_TEMPERATURE_K;
+const MIN_FUEL_K = limits.MIN_FUEL_TEMPERATURE_K;
+const MAX_FUEL_K = limits.MAX_FUEL_TEMPERATURE_K;
+const MIN_AMBIENT_KPA = limits.MIN_AMBIENT_PRESSURE_KPA;
+const MAX_AMBIENT_KPA = limits.MAX_AMBIENT_PRESSURE_KPA;
+const MIN_ELEVATION_M = limits.MIN_ELEVATION_M;
+const MAX_ELEVATION_M = limits.MAX_ELEVATION_M;
+const MAX_PRESSURE_RATIO = limits.MAX_PRESSURE_RATIO;
+const MAX_STAGES = limits.MAX_STAGES;
+const MAX_NET_POWER_KW = limits.MAX_NET_POWER_KW;
+const DEFAULT_INTERCOOLER_LOSS = limits.DEFAULT_INTERCOOLER_PRESSURE_LOSS;
+const DEFAULT_REHEATER_LOSS = limits.DEFAULT_REHEATER_PRESSURE_LOSS;
 
 /** The input with every default filled in and every value checked. */
 export interface ResolvedInput {
@@ -82,8 +92,11 @@ function pressureLoss(given: unknown, field: string, what: string, fallback?: nu
 
 function stageCount(given: unknown, field: string, what: string): number {
   const value = finite(given, field);
-  if (!(Number.isInteger(value) && value >= 1 && value <= MAX_STAGES)) {
-    throw new EngineInputError(field, `${what} must be a whole number from 1 to ${MAX_STAGES}; got ${value}.`);
+  if (!(value >= 1 && value <= MAX_STAGES)) {
+    throw new EngineInputError(field, `${what} must be from 1 to at most ${MAX_STAGES}; got ${value}.`);
+  }
+  if (!Number.isInteger(value)) {
+    throw new EngineInputError(field, `${what} must be a whole number; got ${value}.`);
   }
   return value;
 }
@@ -99,10 +112,22 @@ function temperature(given: unknown, field: string, what: string, fallback?: num
   return value;
 }
 
+/** The fuel temperature at the burner: the range fuel-gas systems see (see input-limits.ts). */
+function fuelTemperature(given: unknown): number {
+  const value = finite(given, 'fuel.temperatureK');
+  if (!(value >= MIN_FUEL_K && value <= MAX_FUEL_K)) {
+    throw new EngineInputError(
+      'fuel.temperatureK',
+      `The fuel temperature must be from ${MIN_FUEL_K} K to at most ${MAX_FUEL_K} K (the range of fuel-gas supply and heating); got ${value} K.`,
+    );
+  }
+  return value;
+}
+
 function optionalLimit(parent: Record<string, unknown> | null, key: string, field: string): number | null {
   if (!parent || parent[key] === undefined || parent[key] === null) return null;
   const value = finite(parent[key], field);
-  if (!(value > 0)) throw new EngineInputError(field, `must be a positive temperature in K; got ${value}.`);
+  if (!(value > 0)) throw new EngineInputError(field, `must be a temperature above 0 K; got ${value}.`);
   return value;
 }
 
@@ -124,18 +149,18 @@ export function resolveInput(input: CycleInput): ResolvedInput {
   let ambientPressureKPa: number;
   if (hasPressure) {
     ambientPressureKPa = finite(ambient.pressureKPa, 'ambient.pressureKPa');
-    if (!(ambientPressureKPa > 0)) {
+    if (!(ambientPressureKPa >= MIN_AMBIENT_KPA && ambientPressureKPa <= MAX_AMBIENT_KPA)) {
       throw new EngineInputError(
         'ambient.pressureKPa',
-        `The ambient pressure must be above 0 kPa; got ${ambientPressureKPa}.`,
+        `The ambient pressure must be from ${MIN_AMBIENT_KPA} to at most ${MAX_AMBIENT_KPA} kPa (sites from 20 000 m up to below sea level); got ${ambientPressureKPa}.`,
       );
     }
   } else if (hasElevation) {
     const elevationM = finite(ambient.elevationM, 'ambient.elevationM');
-    if (!(elevationM >= ISA_MIN_ELEVATION_M && elevationM <= ISA_MAX_ELEVATION_M)) {
+    if (!(elevationM >= MIN_ELEVATION_M && elevationM <= MAX_ELEVATION_M)) {
       throw new EngineInputError(
         'ambient.elevationM',
-        `The elevation must be from ${ISA_MIN_ELEVATION_M} m to ${ISA_MAX_ELEVATION_M} m (the standard atmosphere used); got ${elevationM}.`,
+        `The elevation must be from ${MIN_ELEVATION_M} m to at most ${MAX_ELEVATION_M} m (the standard atmosphere used); got ${elevationM}.`,
       );
     }
     ambientPressureKPa = isaPressureKPa(elevationM);
@@ -161,7 +186,7 @@ export function resolveInput(input: CycleInput): ResolvedInput {
         'fuel.hydrogenVolumeFraction',
         'The hydrogen volume fraction',
       ),
-      temperatureK: temperature(f.temperatureK, 'fuel.temperatureK', 'The fuel temperature'),
+      temperatureK: fuelTemperature(f.temperatureK),
     };
   } else if (fluid === 'combustion') {
     throw new EngineInputError('fuel', 'The combustion working fluid needs a fuel.');
@@ -170,8 +195,11 @@ export function resolveInput(input: CycleInput): ResolvedInput {
   const compressor = section(root.compressor, 'compressor');
   const compressorStages = stageCount(compressor.stages, 'compressor.stages', 'The number of compressor stages');
   const pressureRatio = finite(compressor.pressureRatio, 'compressor.pressureRatio');
-  if (!(pressureRatio > 1)) {
-    throw new EngineInputError('compressor.pressureRatio', `The pressure ratio must be above 1; got ${pressureRatio}.`);
+  if (!(pressureRatio > 1 && pressureRatio <= MAX_PRESSURE_RATIO)) {
+    throw new EngineInputError(
+      'compressor.pressureRatio',
+      `The pressure ratio must be above 1 and at most ${MAX_PRESSURE_RATIO}; got ${pressureRatio}.`,
+    );
   }
   const compressorEfficiency = efficiency(
     compressor.isentropicEfficiency,
@@ -188,7 +216,7 @@ export function resolveInput(input: CycleInput): ResolvedInput {
     compressor.intercoolerPressureLoss,
     'compressor.intercoolerPressureLoss',
     'The intercooler pressure loss',
-    0,
+    DEFAULT_INTERCOOLER_LOSS,
   );
 
   let regenerator: ResolvedInput['regenerator'] = null;
@@ -237,13 +265,17 @@ export function resolveInput(input: CycleInput): ResolvedInput {
     turbine.reheaterPressureLoss,
     'turbine.reheaterPressureLoss',
     'The reheater pressure loss',
-    0,
+    DEFAULT_REHEATER_LOSS,
   );
 
   const generatorEfficiency = efficiency(root.generatorEfficiency, 'generatorEfficiency', 'The generator efficiency');
   const netPowerKW = finite(root.netPowerKW, 'netPowerKW');
-  if (!(netPowerKW > 0))
-    throw new EngineInputError('netPowerKW', `The required net power must be above 0 kW; got ${netPowerKW}.`);
+  if (!(netPowerKW > 0 && netPowerKW <= MAX_NET_POWER_KW)) {
+    throw new EngineInputError(
+      'netPowerKW',
+      `The required net power must be above 0 kW and at most ${MAX_NET_POWER_KW} kW; got ${netPowerKW}.`,
+    );
+  }
 
   const limits = isRecord(root.limits) ? root.limits : null;
   if (root.limits !== undefined && root.limits !== null && !limits) {

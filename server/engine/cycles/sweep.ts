@@ -1,12 +1,12 @@
 import { EngineInputError } from '../errors';
+import { MAX_SWEEP_POINTS, MIN_SWEEP_POINTS } from '../input-limits';
 import { maximizeBrent } from '../solvers/optimum';
 import { evaluateStagedCycle } from './staged-cycle';
 import { SWEEP_PARAMETERS, type SweepParameter } from './sweep-parameters';
 import type { CycleInput, CycleResult } from './types';
 
 export { SWEEP_PARAMETERS, type SweepParameter };
-
-export const MAX_SWEEP_POINTS = 1000;
+export { MAX_SWEEP_POINTS };
 
 export interface SweepInput {
   /** The cycle every sample starts from. Defaults left out of it (reheat temperature,
@@ -111,8 +111,14 @@ function validateSweep(input: SweepInput): { values: number[]; integer: boolean 
       throw new EngineInputError(field, 'must be a finite number.');
   }
   if (!(to > from)) throw new EngineInputError('to', `The end of the range must be above its start (${from}).`);
-  if (!(Number.isInteger(points) && points >= 2 && points <= MAX_SWEEP_POINTS)) {
-    throw new EngineInputError('points', `The number of points must be a whole number from 2 to ${MAX_SWEEP_POINTS}.`);
+  if (!(points >= MIN_SWEEP_POINTS && points <= MAX_SWEEP_POINTS)) {
+    throw new EngineInputError(
+      'points',
+      `The number of points must be from ${MIN_SWEEP_POINTS} to at most ${MAX_SWEEP_POINTS}; got ${points}.`,
+    );
+  }
+  if (!Number.isInteger(points)) {
+    throw new EngineInputError('points', `The number of points must be a whole number; got ${points}.`);
   }
   const integer = INTEGER_PARAMETERS.has(input.parameter);
   const values: number[] = [];

@@ -2,6 +2,7 @@ import type { FlowState } from '../processes/flow-state';
 import type { GasModel } from '../properties/gas-model';
 import { STANDARD_PRESSURE_KPA } from '../properties/nasa-species';
 import * as propertyPolynomial from '../properties/property-polynomial';
+import type { StateRecord } from './state-records';
 import type { PathKind, ProcessPath } from './types';
 
 // The points are evaluated on the gases' property polynomials directly (one call per point
@@ -88,4 +89,39 @@ export function isobarPath(
  * and multiplied by the same loss factor). */
 function withoutLoss(a: FlowState, b: FlowState): boolean {
   return Math.abs(b.pressureKPa - a.pressureKPa) <= 1e-12 * a.pressureKPa;
+}
+
+/**
+ * The T-s paths of a cycle: one per process between successive states (both ends included,
+ * `pointsPerProcess` clamped to 2–200), plus the exhaust returning to the ambient state.
+ */
+export function cyclePaths(records: readonly StateRecord[], pointsPerProcess: number): ProcessPath[] {
+  const points = Math.max(2, Math.min(200, Math.round(pointsPerProcess)));
+  const paths: ProcessPath[] = [];
+  for (let i = 1; i < records.length; i++) {
+    const a = records[i - 1];
+    const b = records[i];
+    const kind = b.process!;
+    paths.push(
+      kind === 'compression' || kind === 'expansion'
+        ? polytropicPath(b.gas, a.state, b.state, points, kind, i, i + 1)
+        : isobarPath(b.gas, a.state, b.state, points, kind, i, i + 1, b.burnt),
+    );
+  }
+  // The exhaust returns to the ambient state outside the plant: heat rejection at ambient pressure.
+  const exhaust = records[records.length - 1];
+  const first = records[0];
+  paths.push(
+    isobarPath(
+      first.gas,
+      exhaust.state,
+      first.state,
+      points,
+      'heat-rejection',
+      records.length,
+      1,
+      exhaust.gas !== first.gas,
+    ),
+  );
+  return paths;
 }

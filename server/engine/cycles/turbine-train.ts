@@ -14,14 +14,16 @@
  * The entropy of mixing is left out: at fixed composition it cancels from S(T2s) − S(T1).
  */
 import { EngineInputError } from '../errors';
-import {
-  POLYNOMIAL_MAX_K as DATA_MAX_K,
-  POLYNOMIAL_MIN_K as DATA_MIN_K,
-  UNIVERSAL_GAS_CONSTANT,
-} from '../properties/nasa-species';
+import { MAX_STAGES, MAX_TEMPERATURE_K, MIN_TEMPERATURE_K } from '../input-limits';
+import { burnFuelInto, fuelEnthalpyAt, type Fuel, type GasStream } from '../processes/combustion';
+import type { FlowState } from '../processes/flow-state';
+import type { GasModel } from '../properties/gas-model';
+import { SPECIES_INDEX, UNIVERSAL_GAS_CONSTANT } from '../properties/nasa-species';
 import * as propertyPolynomial from '../properties/property-polynomial';
 import type { Polynomial } from '../properties/property-polynomial';
-import { MAX_STAGES } from './resolve-input';
+import { productGas } from './cycle-gases';
+import type { ResolvedInput } from './resolve-input';
+import { REHEATER_LABELS, stageLabels, TURBINE_LABELS, type StateRecord } from './state-records';
 
 // Local copies of the imported functions: once transpiled, every read of an imported binding
 // is a getter call, which the optimiser does not always inline, and these run in every pass.
@@ -29,15 +31,18 @@ const {
   blendPolynomials,
   cpOf,
   enthalpyOf,
+  enthalpyWithLog,
   newPolynomial,
+  standardEntropyWithLog,
   temperatureFromEnthalpyOf,
   temperatureFromStandardEntropyOf,
 } = propertyPolynomial;
 
 // Local copies: an imported binding is a property getter once transpiled, read per stage.
-const MIN_K = DATA_MIN_K;
-const MAX_K = DATA_MAX_K;
+const MIN_K = MIN_TEMPERATURE_K;
+const MAX_K = MAX_TEMPERATURE_K;
 const RU = UNIVERSAL_GAS_CONSTANT;
+const OXYGEN = SPECIES_INDEX.O2;
 
 /** What a pass needs, fixed for one evaluation. Enthalpies kJ and entropies kJ/K per kg of inlet air. */
 export interface TrainSetup {
@@ -203,7 +208,8 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
     exitRatio = exitK / t;
     pass.previousIsentropicK[j] = lastIsentropicK;
     pass.previousExitK[j] = lastExitK;
-    checkStageExit(exitK, 'turbine', j);
+    checkStageExit(isentropicK, 'turbine', j, true);
+    checkStageExit(exitK, 'turbine', j, false);
     pass.isentropicK[j] = isentropicK;
     record(pass, k, exitK, exitEnthalpy, fuelKg);
     h = exitEnthalpy;
@@ -281,15 +287,144 @@ function burntToReach(
 }
 
 /**
- * Refuses a stage exit (compressor or turbine) outside the range of the property data; the
- * pressure ratio is what drives it there.
+ * Refuses a stage exit temperature (compressor or turbine; the actual exit, or the isentropic
+ * one the stage is computed from) outside the range of the property data, where the
+ * inversions would extrapolate; the pressure ratio is what drives it there.
  */
-export function checkStageExit(temperatureK: number, part: 'compressor' | 'turbine', stage: number): void {
+export function checkStageExit(
+  temperatureK: number,
+  part: 'compressor' | 'turbine',
+  stage: number,
+  isentropic: boolean,
+): void {
   // The message is built only on failure: this runs for every stage of every pass.
   if (!(temperatureK >= MIN_K && temperatureK <= MAX_K)) {
     throw new EngineInputError(
       'compressor.pressureRatio',
-      `The ${part} ${stage} exit temperature would be ${Number.isFinite(temperatureK) ? temperatureK.toFixed(1) + ' K' : 'undefined'}, outside the range of the property data (${MIN_K}–${MAX_K} K).`,
+      `The ${part} ${stage} ${isentropic ? 'isentropic exit' : 'exit'} temperature would be ${Number.isFinite(temperatureK) ? temperatureK.toFixed(1) + ' K' : 'undefined'}, outside the range of the property data (${MIN_K}–${MAX_K} K); change the pressure ratio.`,
     );
   }
+}
+
+/**
+ * The fixed numbers of the turbine train for one evaluation (see TrainSetup). `airStream` and
+ * `fuel` are given when the fuel burns in the gas (combustion mode), null otherwise.
+ */
+export function trainSetup(
+  r: ResolvedInput,
+  airGas: GasModel,
+  airStream: GasStream | null,
+  fuel: Fuel | null,
+  compressorExit: FlowState,
+  expansionRatio: number,
+): TrainSetup {
+  const polynomial = airGas.polynomial;
+  const change = fuel && airStream ? fuel.changePolynomial : null;
+  const inletK = r.turbineInletTemperatureK;
+  const reheatK = r.reheatTemperatureK;
+  const coldInletK = compressorExit.temperatureK;
+  // Each of these costs a logarithm; the reheat temperature is by default the turbine inlet
+  // temperature, and then its values are the inlet's.
+  const sameReheat = reheatK === inletK;
+  // One logarithm per temperature serves h and s° of air and change there.
+  const lnInlet = Math.log(inletK);
+  const lnReheat = sameReheat ? lnInlet : Math.log(reheatK);
+  const airEnthalpyAtInlet = enthalpyWithLog(polynomial, inletK, lnInlet);
+  const airEntropyAtInlet = standardEntropyWithLog(polynomial, inletK, lnInlet);
+  const airEnthalpyAtReheat = sameReheat ? airEnthalpyAtInlet : enthalpyWithLog(polynomial, reheatK, lnReheat);
+  const airEntropyAtReheat = sameReheat ? airEntropyAtInlet : standardEntropyWithLog(polynomial, reheatK, lnReheat);
+  let changeEnthalpyAtInlet = 0;
+  let changeEntropyAtInlet = 0;
+  let changeEnthalpyAtReheat = 0;
+  let changeEntropyAtReheat = 0;
+  let fuelEnthalpy = 0;
+  if (change && fuel && r.fuel) {
+    changeEnthalpyAtInlet = enthalpyWithLog(change, inletK, lnInlet);
+    changeEntropyAtInlet = standardEntropyWithLog(change, inletK, lnInlet);
+    changeEnthalpyAtReheat = sameReheat ? changeEnthalpyAtInlet : enthalpyWithLog(change, reheatK, lnReheat);
+    changeEntropyAtReheat = sameReheat ? changeEntropyAtInlet : standardEntropyWithLog(change, reheatK, lnReheat);
+    fuelEnthalpy = fuelEnthalpyAt(fuel, r.fuel.temperatureK);
+  }
+  return {
+    air: polynomial,
+    airMoles: 1 / airGas.molarMassKgPerKmol,
+    change,
+    changeMoles: change && fuel ? fuel.changeMolesPerKg : 0,
+    maxFuelKg: change && fuel && airStream ? airStream.amounts[OXYGEN] / -fuel.changePerKg[OXYGEN] : 0,
+    stages: r.turbineStages,
+    inletK,
+    reheatK,
+    efficiency: r.turbineEfficiency,
+    logStagePressureRatio: -Math.log(expansionRatio),
+    airEnthalpyAtInlet,
+    airEntropyAtInlet,
+    changeEnthalpyAtInlet,
+    changeEntropyAtInlet,
+    airEnthalpyAtReheat,
+    airEntropyAtReheat,
+    changeEnthalpyAtReheat,
+    changeEntropyAtReheat,
+    // The heat each kg of fuel gives when its products leave at T: h_f(T_fuel) − Σ νᵢ hᵢ(T) (see fuelRelease).
+    releaseToInlet: fuelEnthalpy - changeEnthalpyAtInlet,
+    releaseToReheat: fuelEnthalpy - changeEnthalpyAtReheat,
+    effectiveness: r.regenerator ? r.regenerator.effectiveness : 0,
+    coldInletK,
+    coldInletEnthalpy: compressorExit.enthalpyKJPerKg,
+    changeEnthalpyAtColdInlet: change && r.regenerator ? enthalpyOf(change, coldInletK) : 0,
+  };
+}
+
+/**
+ * The states of the hot section (combustor exit, turbine and reheater exits) from the
+ * numbers of the final pass, appended to `records` with their gases: the mixtures of the
+ * products are made here, once per burner, not on every pass. Returns the turbine work
+ * from the states' enthalpies, kJ per kg of inlet air.
+ */
+export function turbineTrainRecords(
+  pass: TrainPass,
+  airGas: GasModel,
+  airStream: GasStream | null,
+  fuel: Fuel | null,
+  turbineInletKPa: number,
+  expansionRatio: number,
+  r: ResolvedInput,
+  records: StateRecord[],
+): number {
+  let gas = airGas;
+  let mass = 1;
+  let pressureKPa = turbineInletKPa;
+  let turbineWorkKJ = 0;
+  let previousEnthalpy = 0;
+  const m = r.turbineStages;
+  const turbineLabels = stageLabels(TURBINE_LABELS, 'turbine', m, ' exit');
+  const reheaterLabels = stageLabels(REHEATER_LABELS, 'reheater', m, ' exit');
+  for (let k = 0; k < pass.count; k++) {
+    const expansion = k % 2 === 1;
+    const burnt = !expansion && airStream !== null && fuel !== null;
+    if (burnt) {
+      const products = productGas(k / 2);
+      mass = burnFuelInto(products, airStream!, pass.fuelKg[k], fuel!);
+      gas = products;
+    }
+    if (expansion) pressureKPa /= expansionRatio;
+    else if (k > 0) pressureKPa *= 1 - r.reheaterPressureLoss;
+    const temperatureK = pass.temperatureK[k];
+    const enthalpy = pass.enthalpy[k] / mass;
+    if (expansion) turbineWorkKJ += mass * (previousEnthalpy - enthalpy);
+    previousEnthalpy = enthalpy;
+    records.push({
+      label: k === 0 ? 'combustor exit' : expansion ? turbineLabels[(k + 1) / 2] : reheaterLabels[k / 2],
+      state: {
+        temperatureK,
+        pressureKPa,
+        enthalpyKJPerKg: enthalpy,
+        entropyKJPerKgK: gas.entropyKJPerKgK(temperatureK, pressureKPa),
+      },
+      gas,
+      mass,
+      process: expansion ? 'expansion' : 'heat-addition',
+      burnt,
+    });
+  }
+  return turbineWorkKJ;
 }

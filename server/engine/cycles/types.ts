@@ -94,7 +94,8 @@ export interface CycleWarning {
     | 'no-net-work'
     | 'intercooler-heats-air'
     | 'dissociation-neglected'
-    | 'outside-typical-range';
+    | 'outside-typical-range'
+    | 'humidity-ignored';
   readonly message: string;
   /** The input the warning concerns, when there is one. */
   readonly field?: string;

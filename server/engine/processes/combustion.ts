@@ -6,15 +6,17 @@ import {
   massOfAmounts,
   SPECIES_COUNT,
 } from '../properties/ideal-gas-mixture';
-import { SPECIES } from '../properties/nasa-species';
+import { SPECIES, SPECIES_INDEX } from '../properties/nasa-species';
 import { polynomialFromCoefficients, type Polynomial } from '../properties/property-polynomial';
 
-const O2 = 1;
-const CO2 = 3;
-const H2O = 4;
-const CH4 = 5;
-const H2 = 6;
-const LHV_REFERENCE_K = 298.15;
+// Local copies of the species index (imported bindings are getters once transpiled).
+const O2 = SPECIES_INDEX.O2;
+const CO2 = SPECIES_INDEX.CO2;
+const H2O = SPECIES_INDEX.H2O;
+const CH4 = SPECIES_INDEX.CH4;
+const H2 = SPECIES_INDEX.H2;
+/** Reference temperature of the heating value and of the fuel's sensible heat, K. */
+export const LHV_REFERENCE_K = 298.15;
 // Local copies: an imported binding is a getter once transpiled, and these are read in loops.
 const LENGTH = EXTENSIVE_LENGTH;
 const SPECIES_IN_GAS = SPECIES_COUNT;
@@ -42,6 +44,10 @@ export interface Fuel {
   readonly changePolynomial: Polynomial;
   /** kmol of gas gained per kg of fuel burnt (Σ νᵢ). */
   readonly changeMolesPerKg: number;
+  /** Absolute enthalpy of the unburnt fuel at 298.15 K, kJ/kg (the origin of its sensible heat). */
+  readonly referenceEnthalpyKJPerKg: number;
+  /** kg of fuel that burns all the oxygen of 1 kmol of O2: 1 / (kmol O2 per kg of fuel). */
+  readonly fuelKgPerKmolOxygen: number;
 }
 
 /** Builds the fuel model for a hydrogen volume fraction 0–1. */
@@ -72,6 +78,8 @@ export function makeFuel(hydrogenVolumeFraction: number): Fuel {
     fuelCoefficients,
     changePolynomial: polynomialFromCoefficients(changeCoefficients, 1, 0),
     changeMolesPerKg: change[O2] + change[CO2] + change[H2O],
+    referenceEnthalpyKJPerKg: enthalpyOfCoefficients(fuelCoefficients, LHV_REFERENCE_K),
+    fuelKgPerKmolOxygen: -1 / change[O2],
   };
 }
 
@@ -132,6 +140,14 @@ export function burnToTemperature(
  */
 export function fuelRelease(fuel: Fuel, fuelK: number, outletK: number): number {
   return fuelEnthalpyAt(fuel, fuelK) - enthalpyOfCoefficients(fuel.changeCoefficients, outletK);
+}
+
+/**
+ * Sensible heat of the fuel above 298.15 K, kJ per kg of fuel: h_f(T_f) − h_f(298.15 K).
+ * It enters the heat input beside the LHV (which is defined at 298.15 K). 200–6000 K.
+ */
+export function fuelSensibleHeat(fuel: Fuel, fuelK: number): number {
+  return enthalpyOfCoefficients(fuel.fuelCoefficients, fuelK) - fuel.referenceEnthalpyKJPerKg;
 }
 
 /** Absolute enthalpy of the unburnt fuel at `fuelK`, kJ per kg of fuel. 200–6000 K. */

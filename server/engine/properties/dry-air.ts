@@ -1,4 +1,5 @@
 import { SPECIES_COUNT } from './ideal-gas-mixture';
+import { SPECIES_INDEX } from './nasa-species';
 
 /**
  * Dry air, mole fractions. Source: U.S. Standard Atmosphere, 1976 (NOAA/NASA/USAF),
@@ -17,9 +18,9 @@ export const DRY_AIR_MOLE_FRACTIONS = {
 /** Dry air as species amounts (kmol per kmol of dry air) in SPECIES_ORDER. */
 export function dryAirAmounts(): Float64Array {
   const amounts = new Float64Array(SPECIES_COUNT);
-  amounts[0] = DRY_AIR_MOLE_FRACTIONS.N2;
-  amounts[1] = DRY_AIR_MOLE_FRACTIONS.O2;
-  amounts[2] = DRY_AIR_MOLE_FRACTIONS.Ar;
-  amounts[3] = DRY_AIR_MOLE_FRACTIONS.CO2;
+  amounts[SPECIES_INDEX.N2] = DRY_AIR_MOLE_FRACTIONS.N2;
+  amounts[SPECIES_INDEX.O2] = DRY_AIR_MOLE_FRACTIONS.O2;
+  amounts[SPECIES_INDEX.Ar] = DRY_AIR_MOLE_FRACTIONS.Ar;
+  amounts[SPECIES_INDEX.CO2] = DRY_AIR_MOLE_FRACTIONS.CO2;
   return amounts;
 }

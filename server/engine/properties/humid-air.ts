@@ -3,7 +3,7 @@ import psychrolib from 'psychrolib';
 import { EngineInputError } from '../errors';
 import { dryAirAmounts } from './dry-air';
 import { IdealGasMixture, massOfAmounts } from './ideal-gas-mixture';
-import { SPECIES } from './nasa-species';
+import { SPECIES, SPECIES_INDEX } from './nasa-species';
 
 // psychrolib keeps its unit system as module state: it is set here, once, and nowhere else.
 psychrolib.SetUnitSystem(psychrolib.SI);
@@ -12,7 +12,7 @@ psychrolib.SetUnitSystem(psychrolib.SI);
 export const PSYCHROMETRIC_MIN_K = 173.15;
 export const PSYCHROMETRIC_MAX_K = 473.15;
 
-const H2O_INDEX = 4;
+const H2O_INDEX = SPECIES_INDEX.H2O;
 
 export interface HumidAir {
   /** The gas: dry air plus water vapour. */

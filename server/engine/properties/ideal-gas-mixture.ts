@@ -13,7 +13,7 @@ import type { Polynomial } from './property-polynomial';
 /** Amount of each species, kmol, in SPECIES_ORDER (N2, O2, Ar, CO2, H2O, CH4, H2). */
 export type SpeciesAmounts = ArrayLike<number>;
 
-export const SPECIES_COUNT = 7;
+export const SPECIES_COUNT = SPECIES_ORDER.length;
 
 /** Length of an extensive coefficient set: 9 numbers (a1…a7, b1, b2) for each of two ranges. */
 export const EXTENSIVE_LENGTH = 2 * COEFFICIENTS_PER_RANGE;

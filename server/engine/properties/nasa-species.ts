@@ -55,7 +55,16 @@ export function fromSevenCoefficients(a: readonly number[]): number[] {
   return [0, 0, ...a];
 }
 
-/** Species in a fixed order; mixtures hold their amounts in arrays in this order. */
+/**
+ * The one species index of the engine: mixtures hold their amounts in arrays in this order.
+ * Modules that read amounts by species take their index from here (as local copies).
+ */
+export const SPECIES_INDEX = { N2: 0, O2: 1, Ar: 2, CO2: 3, H2O: 4, CH4: 5, H2: 6 } as const satisfies Record<
+  SpeciesName,
+  number
+>;
+
+/** Species in the order of SPECIES_INDEX. */
 export const SPECIES_ORDER: readonly SpeciesName[] = ['N2', 'O2', 'Ar', 'CO2', 'H2O', 'CH4', 'H2'];
 
 export const SPECIES: Readonly<Record<SpeciesName, NasaSpecies>> = {
