@@ -1,6 +1,23 @@
 import { z } from 'zod';
 
 import { SWEEP_PARAMETERS } from '@/server/engine/cycles/sweep-parameters';
+import {
+  DEFAULT_INTERCOOLER_PRESSURE_LOSS,
+  DEFAULT_REHEATER_PRESSURE_LOSS,
+  MAX_AMBIENT_PRESSURE_KPA,
+  MAX_ELEVATION_M,
+  MAX_FUEL_TEMPERATURE_K,
+  MAX_NET_POWER_KW,
+  MAX_PRESSURE_RATIO,
+  MAX_STAGES,
+  MAX_SWEEP_POINTS,
+  MAX_TEMPERATURE_K,
+  MIN_AMBIENT_PRESSURE_KPA,
+  MIN_ELEVATION_M,
+  MIN_FUEL_TEMPERATURE_K,
+  MIN_SWEEP_POINTS,
+  MIN_TEMPERATURE_K,
+} from '@/server/engine/input-limits';
 
 /**
  * Request bodies of the cycle engine (POST /api/cycles/evaluate and /sweep), shared with
@@ -9,17 +26,35 @@ import { SWEEP_PARAMETERS } from '@/server/engine/cycles/sweep-parameters';
  * below its inlet, more fuel than can burn, no expansion left) are caught by the engine.
  */
 
-const num = (quantity: string) =>
-  z
-    .number({
-      error: (issue) => (issue.input === undefined ? `${quantity} is required.` : `${quantity} must be a number.`),
-    })
-    .finite({ error: `${quantity} must be a finite number.` });
+// The limits below are the engine's own (server/engine/input-limits.ts), so form, route and
+// engine refuse the same values with the same bounds.
 
-const temperatureK = (quantity: string) =>
+/** Numbers written with a thin grouping space, as on the screens (20 000). */
+const figure = (value: number) => value.toLocaleString('en-US').replace(/,/g, ' ');
+
+/** A finite number. An infinity or NaN is a number that is not finite, anything else is not a number. */
+const num = (quantity: string) =>
+  z.number({
+    error: (issue) =>
+      issue.input === undefined
+        ? `${quantity} is required.`
+        : typeof issue.input === 'number'
+          ? `${quantity} must be finite.`
+          : `${quantity} must be a number.`,
+  });
+
+const temperatureK = (
+  quantity: string,
+  min = MIN_TEMPERATURE_K,
+  max = MAX_TEMPERATURE_K,
+  why = 'range of the property data',
+) =>
   num(quantity)
-    .min(200, { error: `${quantity} must be at least 200 K (range of the property data).` })
-    .max(6000, { error: `${quantity} must be at most 6000 K (range of the property data).` });
+    .min(min, { error: `${quantity} must be at least ${min} K (${why}).` })
+    .max(max, { error: `${quantity} must be at most ${max} K (${why}).` });
+
+/** A temperature limit of the design basis: above 0 K. */
+const limitK = (quantity: string) => num(quantity).gt(0, { error: `${quantity} must be above 0 K.` });
 
 const fraction = (quantity: string) =>
   num(quantity)
@@ -36,11 +71,12 @@ const pressureLoss = (quantity: string) =>
     .min(0, { error: `${quantity} must be at least 0.` })
     .lt(1, { error: `${quantity} must be below 1 (a fraction of the inlet pressure).` });
 
+// The bounds come before the whole-number check: 1e20 is out of range before it is anything else.
 const stages = (quantity: string) =>
   num(quantity)
-    .int({ error: `${quantity} must be a whole number.` })
     .min(1, { error: `${quantity} must be at least 1.` })
-    .max(100, { error: `${quantity} must be at most 100.` });
+    .max(MAX_STAGES, { error: `${quantity} must be at most ${MAX_STAGES}.` })
+    .int({ error: `${quantity} must be a whole number.` });
 
 /** Messages for a group of inputs: missing, not an object, or holding unknown fields. */
 const group = (what: string) => ({
@@ -56,10 +92,13 @@ export const ambientSchema = z
   .strictObject(
     {
       temperatureK: temperatureK('Ambient temperature'),
-      pressureKPa: num('Ambient pressure').gt(0, { error: 'Ambient pressure must be above 0 kPa.' }).optional(),
+      pressureKPa: num('Ambient pressure')
+        .min(MIN_AMBIENT_PRESSURE_KPA, { error: `Ambient pressure must be at least ${MIN_AMBIENT_PRESSURE_KPA} kPa.` })
+        .max(MAX_AMBIENT_PRESSURE_KPA, { error: `Ambient pressure must be at most ${MAX_AMBIENT_PRESSURE_KPA} kPa.` })
+        .optional(),
       elevationM: num('Elevation')
-        .min(-1000, { error: 'Elevation must be at least −1000 m.' })
-        .max(20000, { error: 'Elevation must be at most 20 000 m.' })
+        .min(MIN_ELEVATION_M, { error: `Elevation must be at least ${figure(MIN_ELEVATION_M).replace('-', '−')} m.` })
+        .max(MAX_ELEVATION_M, { error: `Elevation must be at most ${figure(MAX_ELEVATION_M)} m.` })
         .optional(),
       relativeHumidity: fraction('Relative humidity'),
     },
@@ -81,7 +120,12 @@ export const ambientSchema = z
 export const fuelSchema = z.strictObject(
   {
     hydrogenVolumeFraction: fraction('Hydrogen volume fraction'),
-    temperatureK: temperatureK('Fuel temperature'),
+    temperatureK: temperatureK(
+      'Fuel temperature',
+      MIN_FUEL_TEMPERATURE_K,
+      MAX_FUEL_TEMPERATURE_K,
+      'range of fuel-gas supply and heating',
+    ),
   },
   group('Fuel'),
 );
@@ -89,11 +133,13 @@ export const fuelSchema = z.strictObject(
 export const compressorSchema = z.strictObject(
   {
     stages: stages('Number of compressor stages'),
-    pressureRatio: num('Pressure ratio').gt(1, { error: 'Pressure ratio must be above 1.' }),
+    pressureRatio: num('Pressure ratio')
+      .gt(1, { error: 'Pressure ratio must be above 1.' })
+      .max(MAX_PRESSURE_RATIO, { error: `Pressure ratio must be at most ${MAX_PRESSURE_RATIO}.` }),
     isentropicEfficiency: efficiency('Compressor isentropic efficiency'),
     /** Default: the ambient temperature (filled in by evaluateRequestSchema and by the engine). */
     intercoolTemperatureK: temperatureK('Intercooling temperature').optional(),
-    intercoolerPressureLoss: pressureLoss('Intercooler pressure loss').default(0),
+    intercoolerPressureLoss: pressureLoss('Intercooler pressure loss').default(DEFAULT_INTERCOOLER_PRESSURE_LOSS),
   },
   group('Compressor'),
 );
@@ -114,16 +160,16 @@ export const turbineSchema = z.strictObject(
     isentropicEfficiency: efficiency('Turbine isentropic efficiency'),
     /** Default: the turbine inlet temperature. */
     reheatTemperatureK: temperatureK('Reheat temperature').optional(),
-    reheaterPressureLoss: pressureLoss('Reheater pressure loss').default(0),
+    reheaterPressureLoss: pressureLoss('Reheater pressure loss').default(DEFAULT_REHEATER_PRESSURE_LOSS),
   },
   group('Turbine'),
 );
 
 export const limitsSchema = z.strictObject(
   {
-    maxTurbineInletTemperatureK: num('Turbine inlet temperature limit').gt(0).optional(),
-    exhaustTemperatureMinK: num('Lowest exhaust temperature').gt(0).optional(),
-    exhaustTemperatureMaxK: num('Highest exhaust temperature').gt(0).optional(),
+    maxTurbineInletTemperatureK: limitK('Turbine inlet temperature limit').optional(),
+    exhaustTemperatureMinK: limitK('Lowest exhaust temperature').optional(),
+    exhaustTemperatureMaxK: limitK('Highest exhaust temperature').optional(),
   },
   group('Limits'),
 );
@@ -142,7 +188,9 @@ export const cycleInputSchema = z
       combustorPressureLoss: pressureLoss('Combustor pressure loss'),
       turbine: turbineSchema,
       generatorEfficiency: efficiency('Generator efficiency'),
-      netPowerKW: num('Required net power').gt(0, { error: 'Required net power must be above 0 kW.' }),
+      netPowerKW: num('Required net power')
+        .gt(0, { error: 'Required net power must be above 0 kW.' })
+        .max(MAX_NET_POWER_KW, { error: `Required net power must be at most ${figure(MAX_NET_POWER_KW)} kW.` }),
       limits: limitsSchema.nullable().optional(),
     },
     group('The cycle input'),
@@ -180,9 +228,9 @@ export const sweepRequestSchema = z
       from: num('Start of the range'),
       to: num('End of the range'),
       points: num('Number of points')
-        .int({ error: 'Number of points must be a whole number.' })
-        .min(2, { error: 'Number of points must be at least 2.' })
-        .max(1000, { error: 'Number of points must be at most 1000.' }),
+        .min(MIN_SWEEP_POINTS, { error: `Number of points must be at least ${MIN_SWEEP_POINTS}.` })
+        .max(MAX_SWEEP_POINTS, { error: `Number of points must be at most ${MAX_SWEEP_POINTS}.` })
+        .int({ error: 'Number of points must be a whole number.' }),
     },
     group('The sweep request'),
   )

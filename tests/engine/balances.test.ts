@@ -1,8 +1,8 @@
+import psychrolib from 'psychrolib';
 import { describe, expect, it } from 'vitest';
 
 import { evaluateCycle, type CycleInput } from '@/server/engine';
-import { makeFuel } from '@/server/engine/processes/combustion';
-import { speciesMolarEnthalpy } from '@/server/engine/properties/nasa-species';
+import { SPECIES, speciesMolarEnthalpy, type SpeciesName } from '@/server/engine/properties/nasa-species';
 import { expectClose } from '@/tests/helpers/expect-close';
 
 import { byLabel, irrAir, irrCombustion, simpleAir, simpleCombustion, variant } from './cases';
@@ -21,6 +21,11 @@ const configurations: Array<[string, CycleInput]> = [
       c.fuel.hydrogenVolumeFraction = 1;
     }),
   ],
+  ['simple combustion, methane heated to 500 K', variant(simpleCombustion, (c) => (c.fuel.temperatureK = 500))],
+  [
+    '2+2 air with a fuel for its flow, 60 % hydrogen',
+    variant(irrAir, (c) => (c.fuel = { hydrogenVolumeFraction: 0.6, temperatureK: 450 })),
+  ],
   [
     'regenerative, constant cp',
     variant(irrAir, (c) => {
@@ -32,60 +37,139 @@ const configurations: Array<[string, CycleInput]> = [
   ],
 ];
 
-/** Enthalpy of the unburnt fuel per kg at a temperature, straight from the species data. */
-function fuelEnthalpy(hydrogenVolumeFraction: number, temperatureK: number): number {
-  const x = hydrogenVolumeFraction;
-  return (
-    ((1 - x) * speciesMolarEnthalpy('CH4', temperatureK) + x * speciesMolarEnthalpy('H2', temperatureK)) /
-    makeFuel(x).molarMassKgPerKmol
-  );
+// The balances below are summed here from the states' temperatures, compositions and the
+// species data (NASA Glenn polynomials, per species), not from the engine's totals or its
+// mixture code: each state's enthalpy is recomputed, then the works, the heat input and the
+// plant boundary are added up from those enthalpies and compared with what the engine reports.
+psychrolib.SetUnitSystem(psychrolib.SI);
+
+type Amounts = Partial<Record<SpeciesName, number>>;
+
+/** Dry air, mole fractions (U.S. Standard Atmosphere 1976, traces counted as argon). */
+const DRY_AIR: Amounts = { N2: 0.78084, O2: 0.209476, Ar: 1 - 0.78084 - 0.209476 - 0.000314, CO2: 0.000314 };
+
+function massOf(amounts: Amounts): number {
+  let kg = 0;
+  for (const [name, n] of Object.entries(amounts)) kg += n! * SPECIES[name as SpeciesName].molarMass;
+  return kg;
 }
+
+/** Absolute enthalpy of a gas, kJ per kg of it, from the species polynomials one by one. */
+function enthalpyPerKg(amounts: Amounts, temperatureK: number): number {
+  let h = 0;
+  for (const [name, n] of Object.entries(amounts)) h += n! * speciesMolarEnthalpy(name as SpeciesName, temperatureK);
+  return h / massOf(amounts);
+}
+
+/** Humid inlet air, kmol per kg of it: humidity ratio from the ASHRAE functions (psychrolib). */
+function humidAirAmounts(temperatureK: number, pressureKPa: number, relativeHumidity: number): Amounts {
+  const w = psychrolib.GetHumRatioFromRelHum(temperatureK - 273.15, relativeHumidity, pressureKPa * 1000);
+  const dryMass = massOf(DRY_AIR);
+  const amounts: Amounts = {};
+  for (const [name, x] of Object.entries(DRY_AIR)) amounts[name as SpeciesName] = x! / dryMass / (1 + w);
+  amounts.H2O = w / SPECIES.H2O.molarMass / (1 + w);
+  return amounts;
+}
+
+/** A methane–hydrogen blend, kmol per kg of fuel. */
+function fuelAmounts(hydrogenVolumeFraction: number): Amounts {
+  const x = hydrogenVolumeFraction;
+  const molarMass = (1 - x) * SPECIES.CH4.molarMass + x * SPECIES.H2.molarMass;
+  return { CH4: (1 - x) / molarMass, H2: x / molarMass };
+}
+
+/** Products of burning `fuelKg` of the blend completely in the air: CH4 + 2 O2 → CO2 + 2 H2O, H2 + ½ O2 → H2O. */
+function burnt(air: Amounts, fuel: Amounts, fuelKg: number): Amounts {
+  const ch4 = fuelKg * (fuel.CH4 ?? 0);
+  const h2 = fuelKg * (fuel.H2 ?? 0);
+  return {
+    ...air,
+    O2: air.O2! - 2 * ch4 - 0.5 * h2,
+    CO2: air.CO2! + ch4,
+    H2O: air.H2O! + 2 * ch4 + h2,
+  };
+}
+
+/** Lower heating value at 298.15 K from the formation enthalpies, kJ per kg of fuel (water as vapour). */
+function lowerHeatingValue(hydrogenVolumeFraction: number): number {
+  const fuel = fuelAmounts(hydrogenVolumeFraction);
+  const reactants = enthalpyPerKg(fuel, 298.15);
+  const products = burnt({ O2: 10, CO2: 0, H2O: 0 }, fuel, 1);
+  delete products.O2; // oxygen is an element: zero enthalpy at 298.15 K either way
+  let h = 0;
+  for (const [name, n] of Object.entries(products)) h += n! * speciesMolarEnthalpy(name as SpeciesName, 298.15);
+  return reactants - h;
+}
+
+/** Constant-cp air: h = cp (T − 298.15 K), cp = 1.005 kJ/(kg·K) (cold-air standard). */
+const constantCpEnthalpy = (temperatureK: number) => 1.005 * (temperatureK - 298.15);
 
 describe.each(configurations)('%s', (_name, input) => {
   const result = evaluateCycle(input);
   const states = result.states;
+  const ambient = input.ambient;
+  const air = humidAirAmounts(ambient.temperatureK, ambient.pressureKPa!, ambient.relativeHumidity);
+  const fuel = input.fuel ? fuelAmounts(input.fuel.hydrogenVolumeFraction) : null;
+  const combustion = input.fluid === 'combustion';
 
-  it('works add up from the state enthalpies', () => {
-    let compressor = 0;
-    let turbine = 0;
-    for (let i = 1; i < states.length; i++) {
-      const a = states[i - 1];
-      const b = states[i];
-      if (b.label.startsWith('compressor')) compressor += b.enthalpyKJPerKg - a.enthalpyKJPerKg;
-      if (b.label.startsWith('turbine')) turbine += b.massFlowRatio * (a.enthalpyKJPerKg - b.enthalpyKJPerKg);
-    }
-    expectClose(result.compressorWorkKJPerKg, compressor, { rel: 1e-12 }, 'compressor work');
-    expectClose(result.turbineWorkKJPerKg, turbine, { rel: 1e-12 }, 'turbine work');
-    expectClose(result.netWorkKJPerKg, turbine - compressor, { rel: 1e-12 }, 'net work');
+  /** The enthalpy of each state recomputed from its temperature and composition, kJ per kg of its gas. */
+  const enthalpies = states.map((s) => {
+    if (input.fluid === 'constant-cp-air') return constantCpEnthalpy(s.temperatureK);
+    const gas = combustion && s.massFlowRatio > 1 ? burnt(air, fuel!, s.massFlowRatio - 1) : air;
+    return enthalpyPerKg(gas, s.temperatureK);
+  });
+  const is = (i: number, part: string) => states[i].label.startsWith(part);
+  const sumOver = (part: string, term: (i: number) => number) => {
+    let sum = 0;
+    for (let i = 1; i < states.length; i++) if (is(i, part)) sum += term(i);
+    return sum;
+  };
+  const compressorWork = sumOver('compressor', (i) => enthalpies[i] - enthalpies[i - 1]);
+  const turbineWork = sumOver('turbine', (i) => states[i].massFlowRatio * (enthalpies[i - 1] - enthalpies[i]));
+  const intercoolerHeat = sumOver('intercooler', (i) => enthalpies[i - 1] - enthalpies[i]);
+  const burnerRise =
+    sumOver('combustor', (i) => enthalpies[i] - enthalpies[i - 1]) +
+    sumOver('reheater', (i) => enthalpies[i] - enthalpies[i - 1]);
+
+  it('gives every state the enthalpy of its temperature and composition', () => {
+    states.forEach((s, i) =>
+      expectClose(s.enthalpyKJPerKg, enthalpies[i], { rel: 1e-9, abs: 1e-9 }, `h of ${s.label}`),
+    );
   });
 
-  it('closes the energy balance of the whole plant: net work = heat in − heat out, to 1e-9', () => {
-    const inlet = states[0];
-    const exhaust = states[states.length - 1];
-    let intercoolerHeat = 0;
-    for (let i = 1; i < states.length; i++) {
-      if (states[i].label.startsWith('intercooler'))
-        intercoolerHeat += states[i - 1].enthalpyKJPerKg - states[i].enthalpyKJPerKg;
-    }
-    let netFromBoundary: number;
-    if (input.fluid === 'combustion') {
-      // Absolute enthalpies: air and fuel in, exhaust and intercooler heat out.
-      const f = result.fuelAirRatio!;
-      const fuelIn = f * fuelEnthalpy(input.fuel!.hydrogenVolumeFraction, input.fuel!.temperatureK);
-      expectClose(exhaust.massFlowRatio, 1 + f, { rel: 1e-12 }, 'exhaust mass per kg of air');
-      netFromBoundary =
-        inlet.enthalpyKJPerKg + fuelIn - exhaust.massFlowRatio * exhaust.enthalpyKJPerKg - intercoolerHeat;
+  it('reports works equal to the sums of the enthalpy changes across the stages', () => {
+    expectClose(result.compressorWorkKJPerKg, compressorWork, { rel: 1e-9 }, 'compressor work');
+    expectClose(result.turbineWorkKJPerKg, turbineWork, { rel: 1e-9 }, 'turbine work');
+    expectClose(result.netWorkKJPerKg, turbineWork - compressorWork, { rel: 1e-9 }, 'net work');
+  });
+
+  it('reports the heat input of the burners: fuel × (LHV + sensible heat), or the enthalpy rise of the air', () => {
+    let heatInput: number;
+    if (combustion) {
+      const fuelK = input.fuel!.temperatureK;
+      const sensible = enthalpyPerKg(fuel!, fuelK) - enthalpyPerKg(fuel!, 298.15);
+      heatInput = result.fuelAirRatio! * (lowerHeatingValue(input.fuel!.hydrogenVolumeFraction) + sensible);
     } else {
-      const heatOut = exhaust.enthalpyKJPerKg - inlet.enthalpyKJPerKg + intercoolerHeat;
-      netFromBoundary = result.heatInputKJPerKg - heatOut;
+      heatInput = burnerRise;
     }
-    expectClose(result.netWorkKJPerKg, netFromBoundary, { rel: 1e-9 }, 'net work from the plant boundary');
-    expectClose(
-      result.thermalEfficiency,
-      result.netWorkKJPerKg / result.heatInputKJPerKg,
-      { rel: 1e-12 },
-      'efficiency',
-    );
+    expectClose(result.heatInputKJPerKg, heatInput, { rel: 1e-9 }, 'heat input');
+    expectClose(result.thermalEfficiency, (turbineWork - compressorWork) / heatInput, { rel: 1e-9 }, 'efficiency');
+  });
+
+  it('closes the energy balance of the whole plant: net work = what enters − what leaves, to 1e-9', () => {
+    const exhaust = states.length - 1;
+    let netFromBoundary: number;
+    if (combustion) {
+      // Absolute enthalpies: air and fuel in; exhaust and intercooler heat out.
+      const f = result.fuelAirRatio!;
+      expectClose(states[exhaust].massFlowRatio, 1 + f, { rel: 1e-12 }, 'exhaust mass per kg of air');
+      const fuelIn = f * enthalpyPerKg(fuel!, input.fuel!.temperatureK);
+      netFromBoundary = enthalpies[0] + fuelIn - (1 + f) * enthalpies[exhaust] - intercoolerHeat;
+    } else {
+      netFromBoundary = burnerRise - (enthalpies[exhaust] - enthalpies[0]) - intercoolerHeat;
+    }
+    expectClose(turbineWork - compressorWork, netFromBoundary, { rel: 1e-9 }, 'net work from the plant boundary');
+    expectClose(result.netWorkKJPerKg, netFromBoundary, { rel: 1e-9 }, 'net work reported');
   });
 
   it('raises entropy across every real compression and expansion', () => {

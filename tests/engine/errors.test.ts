@@ -126,14 +126,112 @@ describe('impossible input names its field', () => {
     ['unknown working fluid', variant(simpleAir, (c) => (c.fluid = 'steam')), 'fluid'],
     ['zero power', variant(simpleAir, (c) => (c.netPowerKW = 0)), 'netPowerKW'],
     [
-      'compression beyond the data range',
-      variant(simpleAir, (c) => (c.compressor.pressureRatio = 1e9)),
+      'a pressure ratio above 200',
+      variant(simpleAir, (c) => (c.compressor.pressureRatio = 201)),
       'compressor.pressureRatio',
+    ],
+    [
+      'compression beyond the data range',
+      variant(simpleAir, (c) => {
+        c.compressor.pressureRatio = 200;
+        c.compressor.isentropicEfficiency = 0.1;
+      }),
+      'compressor.pressureRatio',
+    ],
+    [
+      // 10 intercooled stages deliver at about 340 K; one turbine stage of η 0.2 from 700 K
+      // ends near 590 K, but its isentropic exit would be about 155 K, below the data.
+      'an isentropic turbine exit below the data range',
+      variant(simpleAir, (c) => {
+        c.compressor.stages = 10;
+        c.compressor.pressureRatio = 200;
+        c.turbine.inletTemperatureK = 700;
+        c.turbine.isentropicEfficiency = 0.2;
+      }),
+      'compressor.pressureRatio',
+    ],
+    ['fuel at 6000 K', variant(irrCombustion, (c) => (c.fuel.temperatureK = 6000)), 'fuel.temperatureK'],
+    ['fuel above 600 K', variant(simpleCombustion, (c) => (c.fuel.temperatureK = 601)), 'fuel.temperatureK'],
+    ['fuel below 230 K', variant(simpleCombustion, (c) => (c.fuel.temperatureK = 229)), 'fuel.temperatureK'],
+    [
+      'fuel at 6000 K in an air mode',
+      variant(irrAir, (c) => (c.fuel = { hydrogenVolumeFraction: 0, temperatureK: 6000 })),
+      'fuel.temperatureK',
+    ],
+    [
+      'ambient pressure of 1e300 kPa',
+      variant(irrCombustion, (c) => (c.ambient.pressureKPa = 1e300)),
+      'ambient.pressureKPa',
+    ],
+    ['ambient pressure above 120 kPa', variant(simpleAir, (c) => (c.ambient.pressureKPa = 121)), 'ambient.pressureKPa'],
+    ['ambient pressure below 5 kPa', variant(simpleAir, (c) => (c.ambient.pressureKPa = 4)), 'ambient.pressureKPa'],
+    ['net power above 10 GW', variant(simpleAir, (c) => (c.netPowerKW = 1e8)), 'netPowerKW'],
+    [
+      'a regenerator that would heat the air above the turbine inlet',
+      variant(irrAir, (c) => {
+        c.turbine.stages = 3;
+        c.turbine.inletTemperatureK = 2000;
+        c.turbine.reheatTemperatureK = 3000;
+      }),
+      'turbine.inletTemperatureK',
+    ],
+    [
+      'turbine inlet below the compressor delivery, with a regenerator (air)',
+      variant(irrAir, (c) => {
+        c.compressor.stages = 1;
+        c.compressor.pressureRatio = 30;
+        c.turbine.inletTemperatureK = 700;
+      }),
+      'turbine.inletTemperatureK',
+    ],
+    [
+      'turbine inlet below the compressor delivery, with a regenerator (combustion)',
+      variant(irrCombustion, (c) => {
+        c.compressor.stages = 1;
+        c.compressor.pressureRatio = 30;
+        c.turbine.inletTemperatureK = 700;
+      }),
+      'turbine.inletTemperatureK',
+    ],
+    [
+      'more fuel than the air can burn in an air mode (combustor)',
+      variant(simpleAir, (c) => {
+        c.fuel = { hydrogenVolumeFraction: 0, temperatureK: 298.15 };
+        c.turbine.inletTemperatureK = 3500;
+      }),
+      'turbine.inletTemperatureK',
+    ],
+    [
+      'more fuel than the air can burn in an air mode (reheaters)',
+      variant(simpleAir, (c) => {
+        c.fuel = { hydrogenVolumeFraction: 0, temperatureK: 298.15 };
+        c.turbine.stages = 4;
+        c.turbine.inletTemperatureK = 2000;
+        c.turbine.reheatTemperatureK = 3000;
+      }),
+      'turbine.reheatTemperatureK',
     ],
   ];
 
   it.each(cases)('%s', (_name, input, field) => {
     expect(fieldOf(() => evaluateCycle(input))).toBe(field);
+  });
+
+  it.each([
+    ['1e20 stages', variant(simpleAir, (c) => (c.compressor.stages = 1e20)), 'at most 100'],
+    ['1.5 stages', variant(simpleAir, (c) => (c.compressor.stages = 1.5)), 'whole number'],
+    ['an infinite temperature', variant(simpleAir, (c) => (c.turbine.inletTemperatureK = Infinity)), 'finite'],
+    ['a string', variant(simpleAir, (c) => (c.netPowerKW = '5')), 'must be a number'],
+    ['a negative limit', variant(simpleAir, (c) => (c.limits = { exhaustTemperatureMinK: -5 })), 'above 0 K'],
+    ['a pressure ratio of 1e9', variant(simpleAir, (c) => (c.compressor.pressureRatio = 1e9)), 'at most 200'],
+  ])('says what is wrong with %s', (_name, input, words) => {
+    try {
+      evaluateCycle(input);
+    } catch (error) {
+      expect((error as EngineInputError).message).toContain(words);
+      return;
+    }
+    throw new Error('expected an EngineInputError');
   });
 
   it('a non-object input', () => {
@@ -149,5 +247,19 @@ describe('elevation instead of pressure', () => {
     });
     // ISA at 1000 m: 89.876 kPa (ICAO standard atmosphere table, from memory).
     expect(evaluateCycle(input, { paths: false }).states[0].pressureKPa).toBeCloseTo(89.876, 2);
+  });
+});
+
+describe('warned, not refused', () => {
+  it('a relative humidity in the constant-cp mode, which is dry air', () => {
+    const humid = variant(simpleAir, (c) => (c.fluid = 'constant-cp-air'));
+    const warning = evaluateCycle(humid, { paths: false }).warnings.find((w) => w.code === 'humidity-ignored');
+    expect(warning?.field).toBe('ambient.relativeHumidity');
+    const dry = variant(humid, (c) => (c.ambient.relativeHumidity = 0));
+    expect(evaluateCycle(dry, { paths: false }).warnings.map((w) => w.code)).not.toContain('humidity-ignored');
+    // The humidity changes nothing in that mode.
+    expect(evaluateCycle(dry, { paths: false }).netWorkKJPerKg).toBe(
+      evaluateCycle(humid, { paths: false }).netWorkKJPerKg,
+    );
   });
 });

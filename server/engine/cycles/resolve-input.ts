@@ -93,7 +93,7 @@ function pressureLoss(given: unknown, field: string, what: string, fallback?: nu
 function stageCount(given: unknown, field: string, what: string): number {
   const value = finite(given, field);
   if (!(value >= 1 && value <= MAX_STAGES)) {
-    throw new EngineInputError(field, `${what} must be from 1 to at most ${MAX_STAGES}; got ${value}.`);
+    throw new EngineInputError(field, `${what} must be at least 1 and at most ${MAX_STAGES}; got ${value}.`);
   }
   if (!Number.isInteger(value)) {
     throw new EngineInputError(field, `${what} must be a whole number; got ${value}.`);
@@ -118,7 +118,7 @@ function fuelTemperature(given: unknown): number {
   if (!(value >= MIN_FUEL_K && value <= MAX_FUEL_K)) {
     throw new EngineInputError(
       'fuel.temperatureK',
-      `The fuel temperature must be from ${MIN_FUEL_K} K to at most ${MAX_FUEL_K} K (the range of fuel-gas supply and heating); got ${value} K.`,
+      `The fuel temperature must be at least ${MIN_FUEL_K} K and at most ${MAX_FUEL_K} K (the range of fuel-gas supply and heating); got ${value} K.`,
     );
   }
   return value;
@@ -152,7 +152,7 @@ export function resolveInput(input: CycleInput): ResolvedInput {
     if (!(ambientPressureKPa >= MIN_AMBIENT_KPA && ambientPressureKPa <= MAX_AMBIENT_KPA)) {
       throw new EngineInputError(
         'ambient.pressureKPa',
-        `The ambient pressure must be from ${MIN_AMBIENT_KPA} to at most ${MAX_AMBIENT_KPA} kPa (sites from 20 000 m up to below sea level); got ${ambientPressureKPa}.`,
+        `The ambient pressure must be at least ${MIN_AMBIENT_KPA} kPa and at most ${MAX_AMBIENT_KPA} kPa (sites from 20 000 m up to below sea level); got ${ambientPressureKPa}.`,
       );
     }
   } else if (hasElevation) {
@@ -160,7 +160,7 @@ export function resolveInput(input: CycleInput): ResolvedInput {
     if (!(elevationM >= MIN_ELEVATION_M && elevationM <= MAX_ELEVATION_M)) {
       throw new EngineInputError(
         'ambient.elevationM',
-        `The elevation must be from ${MIN_ELEVATION_M} m to at most ${MAX_ELEVATION_M} m (the standard atmosphere used); got ${elevationM}.`,
+        `The elevation must be at least ${MIN_ELEVATION_M} m and at most ${MAX_ELEVATION_M} m (the standard atmosphere used); got ${elevationM}.`,
       );
     }
     ambientPressureKPa = isaPressureKPa(elevationM);

@@ -90,6 +90,12 @@ export function evaluateStagedCycle(input: CycleInput, options: EvaluateOptions 
     records,
     warnings,
   );
+  if (!(r.turbineInletTemperatureK > combustorInlet.temperatureK)) {
+    throw new EngineInputError(
+      'turbine.inletTemperatureK',
+      `The turbine inlet temperature (${r.turbineInletTemperatureK} K) must be above the combustor inlet temperature (${combustorInlet.temperatureK.toFixed(1)} K).`,
+    );
+  }
   const turbineWorkKJ = turbineTrainRecords(
     pass,
     airGas,

@@ -114,7 +114,7 @@ function validateSweep(input: SweepInput): { values: number[]; integer: boolean 
   if (!(points >= MIN_SWEEP_POINTS && points <= MAX_SWEEP_POINTS)) {
     throw new EngineInputError(
       'points',
-      `The number of points must be from ${MIN_SWEEP_POINTS} to at most ${MAX_SWEEP_POINTS}; got ${points}.`,
+      `The number of points must be at least ${MIN_SWEEP_POINTS} and at most ${MAX_SWEEP_POINTS}; got ${points}.`,
     );
   }
   if (!Number.isInteger(points)) {
