@@ -1,11 +1,23 @@
-import { compress, newStageSeed } from '../processes/compression';
+import { compress as compressImported, newStageSeed as newStageSeedImported } from '../processes/compression';
 import type { FlowState } from '../processes/flow-state';
-import { changeTemperature } from '../processes/heat-exchange';
+import { changeTemperature as changeTemperatureImported } from '../processes/heat-exchange';
 import type { GasModel } from '../properties/gas-model';
 import type { ResolvedInput } from './resolve-input';
-import { COMPRESSOR_LABELS, INTERCOOLER_LABELS, stageLabels, type StateRecord } from './state-records';
-import { checkStageExit } from './turbine-train';
+import {
+  COMPRESSOR_LABELS,
+  INTERCOOLER_LABELS,
+  stageLabels as stageLabelsImported,
+  type StateRecord,
+} from './state-records';
+import { checkStageExit as checkStageExitImported } from './turbine-train';
 import type { CycleWarning } from './types';
+
+// Local copies: an imported binding is a getter call once transpiled (README, Speed).
+const compress = compressImported;
+const newStageSeed = newStageSeedImported;
+const changeTemperature = changeTemperatureImported;
+const stageLabels = stageLabelsImported;
+const checkStageExit = checkStageExitImported;
 
 /** What the compressor train delivers: its exit state and the work it took, kJ per kg of inlet air. */
 export interface CompressorTrainOutcome {

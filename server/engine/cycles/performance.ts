@@ -1,7 +1,10 @@
 import { EngineInputError } from '../errors';
-import { fuelSensibleHeat, type Fuel } from '../processes/combustion';
+import { fuelSensibleHeat as fuelSensibleHeatImported, type Fuel } from '../processes/combustion';
 import type { ResolvedInput } from './resolve-input';
 import type { CycleWarning } from './types';
+
+// Local copies: an imported binding is a getter call once transpiled (README, Speed).
+const fuelSensibleHeat = fuelSensibleHeatImported;
 
 /** kJ per kWh and per MWh. */
 const KJ_PER_KWH = 3600;

@@ -1,10 +1,21 @@
-import { stateFromEnthalpy, type FlowState } from '../processes/flow-state';
+import { stateFromEnthalpy as stateFromEnthalpyImported, type FlowState } from '../processes/flow-state';
 import type { GasModel } from '../properties/gas-model';
-import { enthalpyOf } from '../properties/property-polynomial';
+import { enthalpyOf as enthalpyOfImported } from '../properties/property-polynomial';
 import type { ResolvedInput } from './resolve-input';
 import type { StateRecord } from './state-records';
-import { regeneratorDuty, runTrain, type TrainPass, type TrainSetup } from './turbine-train';
+import {
+  regeneratorDuty as regeneratorDutyImported,
+  runTrain as runTrainImported,
+  type TrainPass,
+  type TrainSetup,
+} from './turbine-train';
 import type { CycleWarning } from './types';
+
+// Local copies: an imported binding is a getter call once transpiled (README, Speed).
+const stateFromEnthalpy = stateFromEnthalpyImported;
+const enthalpyOf = enthalpyOfImported;
+const regeneratorDuty = regeneratorDutyImported;
+const runTrain = runTrainImported;
 
 /**
  * Typical slope of the regenerator duty with respect to the combustor inlet enthalpy in

@@ -1,17 +1,43 @@
 import { EngineInputError } from '../errors';
-import { stateAt } from '../processes/flow-state';
+import { stateAt as stateAtImported } from '../processes/flow-state';
 import type { GasModel } from '../properties/gas-model';
 import { SPECIES_INDEX } from '../properties/nasa-species';
-import { compressorTrain } from './compressor-train';
-import { CONSTANT_CP_AIR, fuelFor, inletAir } from './cycle-gases';
-import { inputWarnings, resultWarnings } from './cycle-warnings';
-import { performanceFigures } from './performance';
-import { regeneratorColdOutlet, regeneratorHotOutlet, solveTurbineTrain } from './regenerator-coupling';
-import { resolveInput } from './resolve-input';
-import { statePoints, type StateRecord } from './state-records';
-import { cyclePaths } from './t-s-paths';
-import { freshTrainPass, trainSetup, turbineTrainRecords } from './turbine-train';
+import { compressorTrain as compressorTrainImported } from './compressor-train';
+import { CONSTANT_CP_AIR, fuelFor as fuelForImported, inletAir as inletAirImported } from './cycle-gases';
+import { inputWarnings as inputWarningsImported, resultWarnings as resultWarningsImported } from './cycle-warnings';
+import { performanceFigures as performanceFiguresImported } from './performance';
+import {
+  regeneratorColdOutlet as regeneratorColdOutletImported,
+  regeneratorHotOutlet as regeneratorHotOutletImported,
+  solveTurbineTrain as solveTurbineTrainImported,
+} from './regenerator-coupling';
+import { resolveInput as resolveInputImported } from './resolve-input';
+import { statePoints as statePointsImported, type StateRecord } from './state-records';
+import { cyclePaths as cyclePathsImported } from './t-s-paths';
+import {
+  freshTrainPass as freshTrainPassImported,
+  trainSetup as trainSetupImported,
+  turbineTrainRecords as turbineTrainRecordsImported,
+} from './turbine-train';
 import type { CycleInput, CycleResult, CycleWarning, EvaluateOptions } from './types';
+
+// Local copies: an imported binding is a getter call once transpiled (README, Speed).
+const stateAt = stateAtImported;
+const compressorTrain = compressorTrainImported;
+const fuelFor = fuelForImported;
+const inletAir = inletAirImported;
+const inputWarnings = inputWarningsImported;
+const resultWarnings = resultWarningsImported;
+const performanceFigures = performanceFiguresImported;
+const regeneratorColdOutlet = regeneratorColdOutletImported;
+const regeneratorHotOutlet = regeneratorHotOutletImported;
+const solveTurbineTrain = solveTurbineTrainImported;
+const resolveInput = resolveInputImported;
+const statePoints = statePointsImported;
+const cyclePaths = cyclePathsImported;
+const freshTrainPass = freshTrainPassImported;
+const trainSetup = trainSetupImported;
+const turbineTrainRecords = turbineTrainRecordsImported;
 
 const DEFAULT_POINTS_PER_PROCESS = 16;
 const OXYGEN = SPECIES_INDEX.O2;
