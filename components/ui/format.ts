@@ -22,49 +22,67 @@ export function formatNumber(value: number, significant = 4): string {
   return value.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits });
 }
 
+/** A quantity in the unit it is shown in, before rounding for the screen. */
+export type Converted = { amount: number; unit: string };
+
+/**
+ * SI (as the API sends it) → the unit shown. Each US customary factor is the inverse of the
+ * NIST SP 811 (2008) Appendix B factor, to 7 significant figures; tests/app/format.test.ts
+ * checks each one against the table.
+ */
+export const convert = {
+  temperature: (kelvin: number, system: UnitSystem): Converted =>
+    system === 'si' ? { amount: kelvin, unit: 'K' } : { amount: (kelvin * 9) / 5 - 459.67, unit: '°F' },
+  temperatureCelsius: (kelvin: number): Converted => ({ amount: kelvin - 273.15, unit: '°C' }),
+  pressure: (kPa: number, system: UnitSystem): Converted =>
+    system === 'si' ? { amount: kPa, unit: 'kPa' } : { amount: kPa * 0.1450377, unit: 'psia' },
+  // Plant power reads in MW in both systems; US customary adds horsepower for drives.
+  power: (kW: number, system: UnitSystem): Converted =>
+    system === 'si' || kW >= 1000 ? { amount: kW / 1000, unit: 'MW' } : { amount: kW * 1.341022, unit: 'hp' },
+  massFlow: (kgPerS: number, system: UnitSystem): Converted =>
+    system === 'si' ? { amount: kgPerS, unit: 'kg/s' } : { amount: kgPerS * 2.204623, unit: 'lb/s' },
+  specificWork: (kJPerKg: number, system: UnitSystem): Converted =>
+    system === 'si' ? { amount: kJPerKg, unit: 'kJ/kg' } : { amount: kJPerKg * 0.4299226, unit: 'Btu/lb' },
+  heatRate: (kJPerKWh: number, system: UnitSystem): Converted =>
+    system === 'si' ? { amount: kJPerKWh, unit: 'kJ/kWh' } : { amount: kJPerKWh * 0.9478171, unit: 'Btu/kWh' },
+  elevation: (m: number, system: UnitSystem): Converted =>
+    system === 'si' ? { amount: m, unit: 'm' } : { amount: m * 3.28084, unit: 'ft' },
+};
+
+function shown({ amount, unit }: Converted, significant = 4): Formatted {
+  return { value: formatNumber(amount, significant), unit };
+}
+
 export function temperature(kelvin: number, system: UnitSystem): Formatted {
-  return system === 'si'
-    ? { value: formatNumber(kelvin), unit: 'K' }
-    : { value: formatNumber((kelvin * 9) / 5 - 459.67), unit: '°F' };
+  return shown(convert.temperature(kelvin, system));
 }
 
 export function temperatureCelsius(kelvin: number): Formatted {
-  return { value: formatNumber(kelvin - 273.15, 3), unit: '°C' };
+  return shown(convert.temperatureCelsius(kelvin), 3);
 }
 
 export function pressure(kPa: number, system: UnitSystem): Formatted {
-  return system === 'si'
-    ? { value: formatNumber(kPa), unit: 'kPa' }
-    : { value: formatNumber(kPa * 0.1450377), unit: 'psia' };
+  return shown(convert.pressure(kPa, system));
 }
 
 export function power(kW: number, system: UnitSystem): Formatted {
-  // Plant power reads in MW in both systems; US customary adds horsepower for drives.
-  return system === 'si' || kW >= 1000
-    ? { value: formatNumber(kW / 1000), unit: 'MW' }
-    : { value: formatNumber(kW * 1.341022), unit: 'hp' };
+  return shown(convert.power(kW, system));
 }
 
 export function massFlow(kgPerS: number, system: UnitSystem): Formatted {
-  return system === 'si'
-    ? { value: formatNumber(kgPerS), unit: 'kg/s' }
-    : { value: formatNumber(kgPerS * 2.204623), unit: 'lb/s' };
+  return shown(convert.massFlow(kgPerS, system));
 }
 
 export function specificWork(kJPerKg: number, system: UnitSystem): Formatted {
-  return system === 'si'
-    ? { value: formatNumber(kJPerKg), unit: 'kJ/kg' }
-    : { value: formatNumber(kJPerKg * 0.4299226), unit: 'Btu/lb' };
+  return shown(convert.specificWork(kJPerKg, system));
 }
 
 export function heatRate(kJPerKWh: number, system: UnitSystem): Formatted {
-  return system === 'si'
-    ? { value: formatNumber(kJPerKWh), unit: 'kJ/kWh' }
-    : { value: formatNumber(kJPerKWh * 0.9478171), unit: 'Btu/kWh' };
+  return shown(convert.heatRate(kJPerKWh, system));
 }
 
 export function elevation(m: number, system: UnitSystem): Formatted {
-  return system === 'si' ? { value: formatNumber(m), unit: 'm' } : { value: formatNumber(m * 3.28084), unit: 'ft' };
+  return shown(convert.elevation(m, system));
 }
 
 export function percent(fraction: number): Formatted {
