@@ -1,43 +1,30 @@
 import { EngineInputError } from '../errors';
-import { stateAt as stateAtImported } from '../processes/flow-state';
+import * as flowState from '../processes/flow-state';
 import type { GasModel } from '../properties/gas-model';
 import { SPECIES_INDEX } from '../properties/nasa-species';
-import { compressorTrain as compressorTrainImported } from './compressor-train';
-import { CONSTANT_CP_AIR, fuelFor as fuelForImported, inletAir as inletAirImported } from './cycle-gases';
-import { inputWarnings as inputWarningsImported, resultWarnings as resultWarningsImported } from './cycle-warnings';
-import { performanceFigures as performanceFiguresImported } from './performance';
-import {
-  regeneratorColdOutlet as regeneratorColdOutletImported,
-  regeneratorHotOutlet as regeneratorHotOutletImported,
-  solveTurbineTrain as solveTurbineTrainImported,
-} from './regenerator-coupling';
-import { resolveInput as resolveInputImported } from './resolve-input';
-import { statePoints as statePointsImported, type StateRecord } from './state-records';
-import { cyclePaths as cyclePathsImported } from './t-s-paths';
-import {
-  freshTrainPass as freshTrainPassImported,
-  trainSetup as trainSetupImported,
-  turbineTrainRecords as turbineTrainRecordsImported,
-} from './turbine-train';
+import * as compressorTrainModule from './compressor-train';
+import * as cycleGases from './cycle-gases';
+import * as cycleWarnings from './cycle-warnings';
+import * as performance from './performance';
+import * as regeneratorCoupling from './regenerator-coupling';
+import * as resolveInputModule from './resolve-input';
+import type { StateRecord } from './state-records';
+import * as stateRecords from './state-records';
+import * as tsPaths from './t-s-paths';
+import * as turbineTrain from './turbine-train';
 import type { CycleInput, CycleResult, CycleWarning, EvaluateOptions } from './types';
 
 // Local copies: an imported binding is a getter call once transpiled (README, Speed).
-const stateAt = stateAtImported;
-const compressorTrain = compressorTrainImported;
-const fuelFor = fuelForImported;
-const inletAir = inletAirImported;
-const inputWarnings = inputWarningsImported;
-const resultWarnings = resultWarningsImported;
-const performanceFigures = performanceFiguresImported;
-const regeneratorColdOutlet = regeneratorColdOutletImported;
-const regeneratorHotOutlet = regeneratorHotOutletImported;
-const solveTurbineTrain = solveTurbineTrainImported;
-const resolveInput = resolveInputImported;
-const statePoints = statePointsImported;
-const cyclePaths = cyclePathsImported;
-const freshTrainPass = freshTrainPassImported;
-const trainSetup = trainSetupImported;
-const turbineTrainRecords = turbineTrainRecordsImported;
+const { stateAt } = flowState;
+const { compressorTrain } = compressorTrainModule;
+const { CONSTANT_CP_AIR, fuelFor, inletAir } = cycleGases;
+const { inputWarnings, resultWarnings } = cycleWarnings;
+const { performanceFigures } = performance;
+const { regeneratorColdOutlet, regeneratorHotOutlet, solveTurbineTrain } = regeneratorCoupling;
+const { resolveInput } = resolveInputModule;
+const { statePoints } = stateRecords;
+const { cyclePaths } = tsPaths;
+const { freshTrainPass, trainSetup, turbineTrainRecords } = turbineTrain;
 
 const DEFAULT_POINTS_PER_PROCESS = 16;
 const OXYGEN = SPECIES_INDEX.O2;
