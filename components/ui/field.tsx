@@ -1,4 +1,5 @@
 import { forwardRef, useState } from 'react';
+import { Controller, type Control, type FieldPathByValue, type FieldValues } from 'react-hook-form';
 import { Pressable, StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
 
 import { focusRing, type PressState } from './focus';
@@ -61,6 +62,50 @@ export const Field = forwardRef<TextInput, FieldProps>(function Field(
     </View>
   );
 });
+
+export type FormFieldProps<
+  TValues extends FieldValues,
+  TName extends FieldPathByValue<TValues, string | undefined>,
+  TContext,
+  TOutput,
+> = Omit<FieldProps, 'value' | 'onChangeText' | 'error'> & {
+  /** The form's `control` from `useForm`. */
+  control: Control<TValues, TContext, TOutput>;
+  /** A text field of the form's values. */
+  name: TName;
+};
+
+/**
+ * A `Field` bound to one text value of a react-hook-form form through `Controller` (no DOM
+ * refs, so it works on native and on the web alike). The message shown is the field's
+ * error: the schema's as you type, or the server's set with `setError` / `setServerErrors`.
+ */
+export function FormField<
+  TValues extends FieldValues,
+  TName extends FieldPathByValue<TValues, string | undefined>,
+  TContext,
+  TOutput,
+>({ control, name, onBlur, ...field }: FormFieldProps<TValues, TName, TContext, TOutput>) {
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field: bound, fieldState }) => (
+        <Field
+          {...field}
+          ref={bound.ref}
+          value={(bound.value as string | undefined) ?? ''}
+          onChangeText={bound.onChange}
+          onBlur={(e) => {
+            bound.onBlur();
+            onBlur?.(e);
+          }}
+          error={fieldState.error?.message}
+        />
+      )}
+    />
+  );
+}
 
 export type ChoiceOption<V extends string> = { value: V; label: string };
 

@@ -1,4 +1,5 @@
 import { useCallback, useState } from 'react';
+import type { FieldPath, FieldValues, UseFormSetError } from 'react-hook-form';
 
 import { isApiError } from '@/components/data/api-error';
 
@@ -53,21 +54,43 @@ export function useField(schema: Schema, initial = '') {
 
 type FormField = Pick<ReturnType<typeof useField>, 'setServerError'>;
 
+/** The server's message for each of `names` it addressed (in `fieldErrors`, or by `field`). */
+function serverFieldErrors(error: unknown, names: readonly string[]): Array<[string, string]> {
+  if (!isApiError(error)) return [];
+  return names.flatMap((name): Array<[string, string]> => {
+    const message = error.fieldError(name);
+    return message ? [[name, message]] : [];
+  });
+}
+
 /**
  * The one way a form shows a failed submit: each message the server addressed to one of
  * `fields` (in `fieldErrors`, or by `field`) shows at that field. Answers the line for the
  * whole form when the failure named none of them, else null.
  */
 export function showFieldErrors(error: unknown, fields: Record<string, FormField>): string | null {
-  let atAField = false;
-  if (isApiError(error)) {
-    for (const [key, field] of Object.entries(fields)) {
-      const message = error.fieldError(key);
-      if (message) {
-        field.setServerError(message);
-        atAField = true;
-      }
-    }
-  }
-  return atAField ? null : messageFor(error);
+  const atFields = serverFieldErrors(error, Object.keys(fields));
+  for (const [name, message] of atFields) fields[name]!.setServerError(message);
+  return atFields.length > 0 ? null : messageFor(error);
+}
+
+/** Where `setServerErrors` puts a failure that named none of the form's fields. */
+export const formErrorKey = 'root.server' as const;
+
+/**
+ * The same for a react-hook-form form: each server message for one of `names` is set on
+ * that field with `setError` (the first one takes the focus), so it shows at the field and
+ * clears when the value changes and validates again; a failure that named none of them
+ * becomes the form's line at `errors.root.server`.
+ */
+export function setServerErrors<TValues extends FieldValues>(
+  error: unknown,
+  setError: UseFormSetError<TValues>,
+  names: ReadonlyArray<FieldPath<TValues>>,
+): void {
+  const atFields = serverFieldErrors(error, names);
+  atFields.forEach(([name, message], i) =>
+    setError(name as FieldPath<TValues>, { type: 'server', message }, { shouldFocus: i === 0 }),
+  );
+  if (atFields.length === 0) setError(formErrorKey, { type: 'server', message: messageFor(error) });
 }

@@ -1,40 +1,41 @@
-import { useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
 import { useCreateReviewMutation } from '@/components/data/reviews';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Field, FormError } from '@/components/ui/field';
+import { FormError, FormField } from '@/components/ui/field';
 import { useMessage } from '@/components/ui/message';
 import { Heading, Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
-import { showFieldErrors, useField } from '@/components/ui/use-field';
-import { createReviewInput } from '@/server/contracts/review';
+import { setServerErrors } from '@/components/ui/use-field';
+import { createReviewInput, type CreateReviewInput } from '@/server/contracts/review';
 
 /** Name and summary, checked with the server's own schema as you type; a taken name shows at the name. */
 export function CreateReviewForm({ teamId, onDone }: { teamId: string; onDone: () => void }) {
-  const name = useField(createReviewInput.shape.name);
-  const summary = useField(createReviewInput.shape.summary);
   const create = useCreateReviewMutation(teamId);
   const message = useMessage();
-  const [formError, setFormError] = useState<string | null>(null);
+  const { control, handleSubmit, setError, formState } = useForm({
+    resolver: zodResolver(createReviewInput),
+    // Each field is checked from its first change on, and again on submit.
+    mode: 'onChange',
+    defaultValues: { name: '', summary: '' } satisfies CreateReviewInput,
+  });
 
-  const submit = () => {
-    const ok = [name.validate(), summary.validate()].every(Boolean);
-    if (!ok) return;
-    setFormError(null);
-    create.mutate(
-      { name: name.value.trim(), summary: summary.value.trim() },
-      {
-        onSuccess: (review) => {
-          message.show(`Review “${review.name}” created.`);
-          name.reset();
-          summary.reset();
-          onDone();
-        },
-        onError: (error) => setFormError(showFieldErrors(error, { name, summary })),
-      },
-    );
+  // The schema trims: the server receives what it would store.
+  const submit = handleSubmit(async (input) => {
+    try {
+      const review = await create.mutateAsync(input);
+      message.show(`Review “${review.name}” created.`);
+      onDone();
+    } catch (error) {
+      setServerErrors(error, setError, ['name', 'summary']);
+    }
+  });
+  const saving = formState.isSubmitting;
+  const submitOnce = () => {
+    if (!saving) void submit();
   };
 
   return (
@@ -43,31 +44,29 @@ export function CreateReviewForm({ teamId, onDone }: { teamId: string; onDone: (
       <Text size="small" tone="soft">
         One Review is one concept-selection effort: its Design basis, its Candidates and the Decision record.
       </Text>
-      <Field
+      <FormField
+        control={control}
+        name="name"
         label="Review name"
         placeholder="e.g. Unit 3 peaking — cycle choice"
-        value={name.value}
-        onChangeText={name.setValue}
-        error={name.error}
         maxLength={140}
         autoFocus
-        onSubmitEditing={submit}
+        onSubmitEditing={submitOnce}
         testID="review-name-input"
       />
-      <Field
+      <FormField
+        control={control}
+        name="summary"
         label="Summary (optional)"
         placeholder="What must this Review decide, and by when?"
-        value={summary.value}
-        onChangeText={summary.setValue}
-        error={summary.error}
         multiline
         numberOfLines={3}
         testID="review-summary-input"
       />
-      <FormError message={formError} testID="create-review-error" />
+      <FormError message={formState.errors.root?.server?.message} testID="create-review-error" />
       <View style={styles.actions}>
         <Button label="Cancel" variant="quiet" onPress={onDone} testID="create-review-cancel" />
-        <Button label="Create review" busy={create.isPending} onPress={submit} testID="create-review-button" />
+        <Button label="Create review" busy={saving} onPress={submitOnce} testID="create-review-button" />
       </View>
     </Card>
   );
