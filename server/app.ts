@@ -1,16 +1,14 @@
-import { existsSync } from 'node:fs';
-import path from 'node:path';
-
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 
 import type { Database } from '@/db/client';
-import type { Broadcast } from '@/realtime/events';
+import type { Broadcast } from '@/server/services/broadcast';
 import type { Auth } from '@/server/auth/auth';
 import { authGate, type AuthLimits } from '@/server/auth/gate';
 import { apiNotFound, errorHandler, requestId } from '@/server/http/handlers';
 import { refuseForeignOrigin } from '@/server/http/origin';
 import { requireSession } from '@/server/http/session';
+import { serveWebBundle } from '@/server/http/web-bundle';
 import { cyclesRouter } from '@/server/routes/cycles';
 import { publicRouter } from '@/server/routes/public';
 import { reviewsRouter } from '@/server/routes/reviews';
@@ -54,16 +52,7 @@ export function createApp({ db, auth, broadcast, origin, trustProxy = false, aut
   app.use('/api/cycles', cyclesRouter());
   app.use('/api', apiNotFound);
 
-  if (webDir && existsSync(path.join(webDir, 'index.html'))) {
-    app.use(express.static(webDir, { index: false, maxAge: '1h', immutable: false }));
-    const indexFile = path.join(webDir, 'index.html');
-    // Deep links (/reviews/<id>) load the app; a missing file with an extension stays a 404.
-    app.get('/{*splat}', (req, res, next) => {
-      if (path.extname(req.path)) return next();
-      res.setHeader('cache-control', 'no-cache');
-      res.sendFile(indexFile);
-    });
-  }
+  serveWebBundle(app, webDir);
   app.use((req, res) => {
     res.status(404).type('text/plain').send(`Not found: ${req.path}`);
   });
