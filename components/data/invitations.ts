@@ -2,22 +2,14 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { authCall } from '@/components/auth/auth-call';
 import { authClient } from '@/components/auth/auth-client';
-import type { TeamRole } from '@/server/contracts/roles';
+import type { PublicInvitation } from '@/server/contracts/team';
 
 import { api } from './api';
 import { meKeys } from './me';
 import { STALE } from './stale-times';
 
 /** GET /api/invitations/:id — readable before sign-in, so the screen can say who invited whom. */
-export type InvitationSummary = {
-  id: string;
-  teamName: string;
-  email: string;
-  role: TeamRole;
-  inviterName: string;
-  status: 'pending' | 'accepted' | 'rejected' | 'canceled' | string;
-  expiresAt: string;
-};
+export type InvitationSummary = PublicInvitation;
 
 export const invitationKeys = {
   detail: (invitationId: string) => ['invitation', invitationId] as const,

@@ -31,14 +31,16 @@ export const listReviewsQuery = z.strictObject({
   status: z.enum(['active', 'archived', 'all'], { error: 'Status must be active, archived or all.' }).default('active'),
 });
 
-export type Review = {
-  id: string;
-  teamId: string;
-  name: string;
-  summary: string;
-  status: ReviewStatus;
-  createdAt: string;
-  updatedAt: string;
-  archivedAt: string | null;
-  createdBy: { id: string; name: string } | null;
-};
+/** A Review as the API and the live events carry it (the app checks live payloads with it). */
+export const reviewSchema = z.object({
+  id: z.string(),
+  teamId: z.string(),
+  name: z.string(),
+  summary: z.string(),
+  status: reviewStatus,
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  archivedAt: z.string().nullable(),
+  createdBy: z.object({ id: z.string(), name: z.string() }).nullable(),
+});
+export type Review = z.infer<typeof reviewSchema>;

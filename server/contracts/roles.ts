@@ -12,7 +12,7 @@ export const statements = {
   comment: ['create'],
   vote: ['cast'],
   decision: ['sign'],
-  session: ['gather'],
+  liveSession: ['gather'],
 } as const;
 
 export const accessControl = createAccessControl(statements);
@@ -38,14 +38,14 @@ export const roles = {
     review: ['create', 'update', 'archive'],
     candidate: ['create', 'update', 'delete'],
     decision: ['sign'],
-    session: ['gather'],
+    liveSession: ['gather'],
     ...discuss,
   }),
   lead: accessControl.newRole({
     review: ['create', 'update', 'archive'],
     candidate: ['create', 'update', 'delete'],
     decision: ['sign'],
-    session: ['gather'],
+    liveSession: ['gather'],
     ...discuss,
   }),
   engineer: accessControl.newRole({

@@ -80,9 +80,34 @@ export function teamSlug(name: string, tail: string): string {
   return `${base || 'team'}-${tail}`;
 }
 
+/**
+ * What an Activity line records, in the words of the live events (`resource:past-tense`).
+ * A kind stored by an older version reads as plain words on the screen.
+ */
+export const activityKinds = [
+  'review:created',
+  'review:renamed',
+  'review:summary-changed',
+  'review:archived',
+  'review:restored',
+] as const;
+export type ActivityKind = (typeof activityKinds)[number];
+
+/** GET /api/invitations/:invitationId — what the holder of an invitation link may see before signing in. */
+export type PublicInvitation = {
+  id: string;
+  teamName: string;
+  email: string;
+  role: TeamRole;
+  /** Null when the inviter's account is gone. */
+  inviterName: string | null;
+  status: 'pending' | 'accepted' | 'rejected' | 'canceled' | 'expired';
+  expiresAt: string;
+};
+
 export type Activity = {
   id: string;
-  kind: string;
+  kind: ActivityKind;
   reviewId: string | null;
   actor: { id: string; name: string } | null;
   detail: Record<string, unknown>;

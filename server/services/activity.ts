@@ -2,7 +2,7 @@ import { desc, eq } from 'drizzle-orm';
 
 import type { Database } from '@/db/client';
 import { activity, user } from '@/db/schema';
-import type { Activity } from '@/server/contracts/team';
+import type { Activity, ActivityKind } from '@/server/contracts/team';
 
 type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
 
@@ -10,7 +10,7 @@ export type ActivityEntry = {
   teamId: string;
   reviewId?: string | null;
   actorId: string;
-  kind: string;
+  kind: ActivityKind;
   detail?: Record<string, unknown>;
 };
 
@@ -43,7 +43,7 @@ export async function listTeamActivity(db: Database, teamId: string, limit = 200
     .limit(limit);
   return rows.map((r) => ({
     id: r.id,
-    kind: r.kind,
+    kind: r.kind as ActivityKind,
     reviewId: r.reviewId,
     detail: r.detail,
     createdAt: r.createdAt.toISOString(),

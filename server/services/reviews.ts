@@ -2,11 +2,12 @@ import { and, asc, desc, eq, sql } from 'drizzle-orm';
 
 import type { Database } from '@/db/client';
 import { review, user } from '@/db/schema';
-import type { Broadcast } from '@/realtime/events';
 import type { Review, ReviewStatus } from '@/server/contracts/review';
+import type { ActivityKind } from '@/server/contracts/team';
 import { ApiError } from '@/server/http/errors';
 
 import { recordActivity } from './activity';
+import type { Broadcast } from './broadcast';
 
 const columns = {
   id: review.id,
@@ -43,7 +44,7 @@ function toReview(r: Row): Review {
 
 export async function getReview(db: Database, reviewId: string): Promise<Review> {
   const [row] = await selectReviews(db).where(eq(review.id, reviewId)).limit(1);
-  if (!row) throw ApiError.notFound('The review');
+  if (!row) throw ApiError.notFound('The Review');
   return toReview(row);
 }
 
@@ -62,9 +63,9 @@ function isNameTaken(error: unknown) {
 }
 
 const nameTaken = (name: string) =>
-  new ApiError(409, 'conflict', `A review named "${name}" already exists in this Team.`, {
+  new ApiError(409, 'conflict', `A Review named "${name}" already exists in this Team.`, {
     field: 'name',
-    fieldErrors: { name: ['This Team already has a review with this name.'] },
+    fieldErrors: { name: ['This Team already has a Review with this name.'] },
   });
 
 export type ServiceContext = { db: Database; broadcast: Broadcast; actorId: string };
@@ -85,7 +86,7 @@ export async function createReview(
         teamId,
         reviewId: created.id,
         actorId,
-        kind: 'review.created',
+        kind: 'review:created',
         detail: { name: input.name },
       });
       return created.id;
@@ -106,20 +107,20 @@ export async function updateReview(
 ): Promise<Review> {
   const before = await getReview(db, reviewId);
   const changes: Partial<typeof review.$inferInsert> = {};
-  const events: Array<{ kind: string; detail: Record<string, unknown> }> = [];
+  const events: Array<{ kind: ActivityKind; detail: Record<string, unknown> }> = [];
   if (input.name !== undefined && input.name !== before.name) {
     changes.name = input.name;
-    events.push({ kind: 'review.renamed', detail: { from: before.name, to: input.name } });
+    events.push({ kind: 'review:renamed', detail: { from: before.name, to: input.name } });
   }
   if (input.summary !== undefined && input.summary !== before.summary) {
     changes.summary = input.summary;
-    events.push({ kind: 'review.summary-changed', detail: { name: input.name ?? before.name } });
+    events.push({ kind: 'review:summary-changed', detail: { name: input.name ?? before.name } });
   }
   if (input.status !== undefined && input.status !== before.status) {
     changes.status = input.status;
     changes.archivedAt = input.status === 'archived' ? new Date() : null;
     events.push({
-      kind: input.status === 'archived' ? 'review.archived' : 'review.restored',
+      kind: input.status === 'archived' ? 'review:archived' : 'review:restored',
       detail: { name: before.name },
     });
   }

@@ -3,7 +3,7 @@ import { and, asc, eq, gt } from 'drizzle-orm';
 import type { Database } from '@/db/client';
 import { invitation, member, organization, user } from '@/db/schema';
 import { primaryRole, roleAllows, type TeamRole } from '@/server/contracts/roles';
-import type { Me, TeamDetail } from '@/server/contracts/team';
+import type { Me, PublicInvitation, TeamDetail } from '@/server/contracts/team';
 import { ApiError } from '@/server/http/errors';
 
 // Anything unknown reads as the least a member can do.
@@ -21,7 +21,7 @@ export async function getMe(db: Database, me: { id: string; name: string; email:
 
 export async function getTeamDetail(db: Database, teamId: string, myRole: TeamRole): Promise<TeamDetail> {
   const [team] = await db.select().from(organization).where(eq(organization.id, teamId)).limit(1);
-  if (!team) throw ApiError.notFound('The team');
+  if (!team) throw ApiError.notFound('The Team');
   const members = await db
     .select({
       memberId: member.id,
@@ -72,16 +72,6 @@ export async function getTeamDetail(db: Database, teamId: string, myRole: TeamRo
   };
 }
 
-export type PublicInvitation = {
-  id: string;
-  teamName: string;
-  email: string;
-  role: TeamRole;
-  inviterName: string | null;
-  status: string;
-  expiresAt: string;
-};
-
 /** What the holder of an invitation link may see before signing in: the mail told them as much. */
 export async function getPublicInvitation(db: Database, id: string): Promise<PublicInvitation> {
   const [row] = await db
@@ -104,7 +94,7 @@ export async function getPublicInvitation(db: Database, id: string): Promise<Pub
   return {
     ...row,
     role: firstRole(row.role),
-    status: expired ? 'expired' : row.status,
+    status: expired ? 'expired' : (row.status as PublicInvitation['status']),
     expiresAt: row.expiresAt.toISOString(),
   };
 }

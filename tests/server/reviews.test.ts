@@ -32,7 +32,7 @@ describe('reviews of a team', () => {
     expect(res.body).toMatchObject({ teamId, name: 'Peaking unit cycle', summary: '', status: 'active' });
     expect(res.body.createdBy).toEqual({ id: lead.id, name: lead.name });
     const logged = await ctx.db.select().from(activity).where(eq(activity.reviewId, res.body.id));
-    expect(logged.map((a) => a.kind)).toEqual(['review.created']);
+    expect(logged.map((a) => a.kind)).toEqual(['review:created']);
     expect(ctx.sent.at(-1)).toMatchObject({ teamId, event: 'review:created' });
   });
 
@@ -54,7 +54,7 @@ describe('reviews of a team', () => {
     expect(res.status).toBe(200);
     expect(res.body.name).toBe('New name');
     const logged = await ctx.db.select().from(activity).where(eq(activity.reviewId, created.body.id));
-    expect(logged.find((a) => a.kind === 'review.renamed')?.detail).toEqual({ from: 'Old name', to: 'New name' });
+    expect(logged.find((a) => a.kind === 'review:renamed')?.detail).toEqual({ from: 'Old name', to: 'New name' });
   });
 
   it('answers 409 naming the field when the name is taken in the team (any letter case)', async () => {

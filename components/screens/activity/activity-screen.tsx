@@ -19,19 +19,19 @@ const str = (v: unknown) => (typeof v === 'string' ? v : '');
 function describeActivity(a: Activity): string {
   const d = a.detail;
   switch (a.kind) {
-    case 'review.created':
+    case 'review:created':
       return `started the Review “${str(d.name)}”`;
-    case 'review.renamed':
+    case 'review:renamed':
       return `renamed the Review “${str(d.from)}” to “${str(d.to)}”`;
-    case 'review.summary-changed':
+    case 'review:summary-changed':
       return `changed the summary of “${str(d.name)}”`;
-    case 'review.archived':
+    case 'review:archived':
       return `archived the Review “${str(d.name)}”`;
-    case 'review.restored':
+    case 'review:restored':
       return `restored the Review “${str(d.name)}”`;
     default: {
       const name = str(d.name);
-      return a.kind.replace(/[._-]+/g, ' ') + (name ? ` “${name}”` : '');
+      return (a.kind as string).replace(/[:._-]+/g, ' ') + (name ? ` “${name}”` : '');
     }
   }
 }
@@ -71,7 +71,7 @@ export function ActivityScreen() {
                 <Text size="small" tone="muted" accessibilityLabel={formatDateTime(a.createdAt)}>
                   {formatAgo(a.createdAt)}
                 </Text>
-                {a.reviewId && a.kind !== 'review.archived' ? (
+                {a.reviewId && a.kind !== 'review:archived' ? (
                   <PressableLink
                     href={`/reviews/${a.reviewId}`}
                     accessibilityLabel={`Open the review ${str(a.detail.name) || ''}`.trim()}

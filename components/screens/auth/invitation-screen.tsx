@@ -1,5 +1,5 @@
 import { useRouter } from 'expo-router';
-import { useRef, useState } from 'react';
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { authClient } from '@/components/auth/auth-client';
@@ -33,8 +33,11 @@ export function InvitationScreen({ invitationId }: { invitationId: string }) {
   const session = authClient.useSession();
   // better-auth refetches the session after a sign-up; showing "loading" then would unmount
   // the form and lose its "check your inbox" step.
-  const sessionKnown = useRef(false);
-  if (!session.isPending) sessionKnown.current = true;
+  // React's "state from an earlier render" pattern: set once, never reset.
+  const [sessionKnown, setSessionKnown] = useState(false);
+  if (!session.isPending && !sessionKnown) setSessionKnown(true);
+  // The moment the screen opened; expiry is judged against it, not re-read on every render.
+  const [openedAt] = useState(() => Date.now());
 
   if (invitation.error) {
     const missing = isApiError(invitation.error) && invitation.error.status === 404;
@@ -51,7 +54,7 @@ export function InvitationScreen({ invitationId }: { invitationId: string }) {
       </AuthFrame>
     );
   }
-  if (!invitation.data || !sessionKnown.current) {
+  if (!invitation.data || !sessionKnown) {
     return (
       <AuthFrame title="Invitation" testID="invitation-screen">
         <LoadingState label="Reading the invitation…" />
@@ -60,12 +63,12 @@ export function InvitationScreen({ invitationId }: { invitationId: string }) {
   }
 
   const inv = invitation.data;
-  const expired = new Date(inv.expiresAt).getTime() < Date.now();
+  const expired = new Date(inv.expiresAt).getTime() < openedAt;
   if (inv.status !== 'pending' || expired) {
     const why =
       inv.status === 'accepted'
         ? 'It has already been accepted.'
-        : inv.status === 'canceled' || inv.status === 'cancelled'
+        : inv.status === 'canceled'
           ? 'The Team’s Owner withdrew it.'
           : inv.status === 'rejected'
             ? 'It was declined.'
@@ -96,8 +99,8 @@ function InvitationSummaryCard({ inv }: { inv: InvitationSummary }) {
   return (
     <View style={[styles.summary, { backgroundColor: t.surfaceSunk }]} testID="invitation-summary">
       <Text>
-        <Text weight="semibold">{inv.inviterName}</Text> invited <Text weight="semibold">{inv.email}</Text> to the Team{' '}
-        <Text weight="semibold">{inv.teamName}</Text>.
+        <Text weight="semibold">{inv.inviterName ?? 'A former member'}</Text> invited{' '}
+        <Text weight="semibold">{inv.email}</Text> to the Team <Text weight="semibold">{inv.teamName}</Text>.
       </Text>
       <View style={styles.roleRow}>
         <Text size="small" tone="soft">
