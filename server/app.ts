@@ -2,7 +2,6 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 
 import type { Database } from '@/db/client';
-import type { Broadcast } from '@/server/services/broadcast';
 import type { Auth } from '@/server/auth/auth';
 import { authGate, type AuthLimits } from '@/server/auth/gate';
 import { apiNotFound, errorHandler, requestId } from '@/server/http/handlers';
@@ -13,6 +12,7 @@ import { cyclesRouter } from '@/server/routes/cycles';
 import { publicRouter } from '@/server/routes/public';
 import { reviewsRouter } from '@/server/routes/reviews';
 import { teamsRouter } from '@/server/routes/teams';
+import type { Broadcast } from '@/server/services/broadcast';
 
 export type AppDeps = {
   db: Database;

@@ -11,8 +11,9 @@ import { readFileSync } from 'node:fs';
 import { stringify } from 'csv-stringify/sync';
 
 import { evaluateRequestSchema } from '@/server/contracts/cycle';
-import { EngineInputError, evaluateCycle, type CycleResult } from '@/server/engine';
+import { EngineInputError, type CycleResult } from '@/server/engine';
 import { ApiError, parse } from '@/server/http/errors';
+import { evaluate } from '@/server/services/cycles';
 
 const EXIT_BAD_INPUT = 2;
 
@@ -53,12 +54,13 @@ function fieldError(error: ApiError): { field: string; message: string } {
 
 function evaluateOne(body: unknown, path: string): CycleResult {
   try {
-    return evaluateCycle(parse(evaluateRequestSchema, body));
+    return evaluate(parse(evaluateRequestSchema, body));
   } catch (error) {
     if (error instanceof EngineInputError) throw ApiError.invalidField(path + error.field, error.message);
     if (error instanceof ApiError && path) {
       const { field, message } = fieldError(error);
-      throw ApiError.invalidField(path + field, message);
+      // A row that is not an object at all is named by its index alone (`0`, not `0.(body)`).
+      throw ApiError.invalidField(field === '(body)' ? path.replace(/\.$/, '') : path + field, message);
     }
     throw error;
   }

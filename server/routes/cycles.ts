@@ -1,18 +1,8 @@
 import { Router } from 'express';
 
 import { evaluateRequestSchema, sweepRequestSchema } from '@/server/contracts/cycle';
-import { EngineInputError, evaluateCycle, sweepCycle } from '@/server/engine';
-import { ApiError, parse } from '@/server/http/errors';
-
-/** Runs the engine and turns its input errors into a 422 naming the field. */
-function runEngine<T>(compute: () => T): T {
-  try {
-    return compute();
-  } catch (error) {
-    if (error instanceof EngineInputError) throw ApiError.invalidField(error.field, error.message);
-    throw error;
-  }
-}
+import { parse } from '@/server/http/errors';
+import { evaluate, sweep } from '@/server/services/cycles';
 
 /** POST /evaluate (one cycle) and POST /sweep (one input over a range); mounted at /api/cycles. */
 export function cyclesRouter(): Router {
@@ -20,12 +10,12 @@ export function cyclesRouter(): Router {
 
   router.post('/evaluate', (req, res) => {
     const input = parse(evaluateRequestSchema, req.body);
-    res.json(runEngine(() => evaluateCycle(input)));
+    res.json(evaluate(input));
   });
 
   router.post('/sweep', (req, res) => {
     const input = parse(sweepRequestSchema, req.body);
-    res.json(runEngine(() => sweepCycle(input)));
+    res.json(sweep(input));
   });
 
   return router;

@@ -1,11 +1,11 @@
 import { Router } from 'express';
 
 import type { Database } from '@/db/client';
-import type { Broadcast } from '@/realtime/events';
 import { createReviewInput, listReviewsQuery, updateReviewInput } from '@/server/contracts/review';
 import { parse } from '@/server/http/errors';
-import { requireReview, requireTeam } from '@/server/http/guard';
 import { reviewParams, teamParams } from '@/server/http/params';
+import { requireReview, requireTeam } from '@/server/services/access';
+import type { Broadcast } from '@/server/services/broadcast';
 import { createReview, getReview, listReviews, updateReview } from '@/server/services/reviews';
 
 export function reviewsRouter({ db, broadcast }: { db: Database; broadcast: Broadcast }): Router {
@@ -20,8 +20,8 @@ export function reviewsRouter({ db, broadcast }: { db: Database; broadcast: Broa
 
   router.post('/teams/:teamId/reviews', async (req, res) => {
     const { teamId } = parse(teamParams, req.params);
-    await requireTeam(db, res.locals.user.id, teamId, { review: ['create'] });
     const input = parse(createReviewInput, req.body);
+    await requireTeam(db, res.locals.user.id, teamId, { review: ['create'] });
     const created = await createReview({ db, broadcast, actorId: res.locals.user.id }, teamId, input);
     res.status(201).json(created);
   });

@@ -2,8 +2,8 @@ import { Router } from 'express';
 
 import type { Database } from '@/db/client';
 import { parse } from '@/server/http/errors';
-import { requireTeam } from '@/server/http/guard';
 import { teamParams } from '@/server/http/params';
+import { requireTeam } from '@/server/services/access';
 import { listTeamActivity } from '@/server/services/activity';
 import { getMe, getTeamDetail } from '@/server/services/teams';
 
