@@ -1,9 +1,11 @@
 import { count, inArray } from 'drizzle-orm';
 
 import type { Database } from '@/db/client';
-import { activity, member, organization, review, user } from '@/db/schema';
+import { user } from '@/db/schema';
 import { createAuth } from '@/server/auth/auth';
 import type { TeamRole } from '@/server/contracts/roles';
+import { noBroadcast } from '@/server/services/broadcast';
+import { createReview } from '@/server/services/reviews';
 
 /**
  * Demo data, a scenario of our own: Tindra Kraft, an invented northern utility, chooses
@@ -62,29 +64,19 @@ export async function seedDemo(db: Database) {
     .update(user)
     .set({ emailVerified: true })
     .where(inArray(user.id, Object.values(ids)));
-  const teamId = crypto.randomUUID();
-  await db.transaction(async (tx) => {
-    await tx
-      .insert(organization)
-      .values({ id: teamId, name: demoTeam.name, slug: demoTeam.slug, createdAt: new Date() });
-    await tx.insert(member).values(
-      demoUsers.map((u) => ({
-        id: crypto.randomUUID(),
-        organizationId: teamId,
-        userId: ids[u.role],
-        role: u.role,
-        createdAt: new Date(),
-      })),
-    );
-    for (const r of demoReviews) {
-      const [created] = await tx
-        .insert(review)
-        .values({ teamId, name: r.name, summary: r.summary, createdById: ids.lead })
-        .returning({ id: review.id });
-      await tx
-        .insert(activity)
-        .values({ teamId, reviewId: created.id, actorId: ids.lead, kind: 'review.created', detail: { name: r.name } });
-    }
+  // The Team and its members through better-auth, as the app makes them; the Reviews through
+  // the service, so their Activity lines are written by `recordActivity` as for anyone else.
+  const created = await auth.api.createOrganization({
+    body: { name: demoTeam.name, slug: demoTeam.slug, userId: ids.owner },
   });
+  if (!created) throw new Error('The demo Team could not be created.');
+  const teamId = created.id;
+  for (const u of demoUsers) {
+    if (u.role === 'owner') continue;
+    await auth.api.addMember({ body: { userId: ids[u.role], role: u.role, organizationId: teamId } });
+  }
+  for (const r of demoReviews) {
+    await createReview({ db, broadcast: noBroadcast, actorId: ids.lead }, teamId, r);
+  }
   return { teamId };
 }

@@ -1,8 +1,8 @@
 import path from 'node:path';
 
 import { createDatabase } from '@/db/client';
-import { demoPassword, demoUsers, isEmpty, seedDemo } from '@/db/seed';
 import { startServer } from '@/server/index';
+import { demoPassword, demoUsers, isEmpty, seedDemo } from '@/server/ops/seed';
 
 import { startMailFake } from './mail-fake';
 import { migrateDatabase } from './migrate';

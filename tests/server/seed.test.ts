@@ -4,9 +4,9 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
 import type { Database } from '@/db/client';
 import { member, review } from '@/db/schema';
-import { demoPassword, demoReviews, demoUsers, isEmpty, seedDemo } from '@/db/seed';
 import { migrateDatabase } from '@/server/ops/migrate';
 import { ensureCluster, ensureDatabase } from '@/server/ops/postgres';
+import { demoPassword, demoReviews, demoUsers, isEmpty, seedDemo } from '@/server/ops/seed';
 
 import { createTestApp, testOrigin } from '../helpers/api';
 
