@@ -1,14 +1,16 @@
 import { z } from 'zod';
 
-import type { Review } from '@/server/contracts/review';
+import { reviewNews, teamNews, type ReviewNews, type TeamNews } from '@/server/contracts/news';
 
-/** Events the server sends to a team's room `team:<id>`. */
-export type ServerToClientEvents = {
-  'review:created': (payload: { review: Review }) => void;
-  'review:updated': (payload: { review: Review }) => void;
+export { reviewNews, teamNews };
+
+/** Events the server sends: to a Team's room `team:<id>`, and to a Review's board `review:<id>`. */
+export type ServerToClientEvents = { [E in keyof TeamNews]: (payload: TeamNews[E]) => void } & {
+  [E in keyof ReviewNews]: (payload: ReviewNews[E]) => void;
 };
 
-export type Ack = (result: { ok: true } | { error: { code: string; message: string } }) => void;
+export type AckError = { error: { code: string; message: string; field?: string } };
+export type Ack = (result: { ok: true } | AckError) => void;
 
 /** Events a client sends; every payload is checked with the schemas below. */
 export type ClientToServerEvents = {
@@ -21,12 +23,4 @@ export const teamRoomPayload = z.strictObject({
 });
 
 export const teamRoom = (teamId: string) => `team:${teamId}`;
-
-/** What services use to tell the room about a change; a no-op stand-in where nobody listens. */
-export type Broadcast = {
-  toTeam<E extends keyof ServerToClientEvents>(
-    teamId: string,
-    event: E,
-    ...args: Parameters<ServerToClientEvents[E]>
-  ): void;
-};
+export const reviewRoom = (reviewId: string) => `review:${reviewId}`;

@@ -1,28 +1,19 @@
 import type { Server as HttpServer } from 'node:http';
 
 import { fromNodeHeaders } from 'better-auth/node';
-import { eq } from 'drizzle-orm';
 import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
 import { Server } from 'socket.io';
-import type { z } from 'zod';
 
 import type { Database } from '@/db/client';
-import { member } from '@/db/schema';
 import type { Auth } from '@/server/auth/auth';
 import { isDatabaseUnavailable } from '@/server/http/database-errors';
-import { ApiError } from '@/server/http/errors';
-import { requireTeam } from '@/server/http/guard';
+import { reviewListeners, teamMemberIds } from '@/server/services/access';
+import type { Broadcast } from '@/server/services/broadcast';
 
-import {
-  teamRoom,
-  teamRoomPayload,
-  type Ack,
-  type Broadcast,
-  type ClientToServerEvents,
-  type ServerToClientEvents,
-} from './events';
+import { reviewRoom, teamRoom, type Ack, type ClientToServerEvents, type ServerToClientEvents } from './events';
+import { teamRoomHandlers } from './handlers/team-room';
 
-type SocketData = { user: { id: string; name: string; email: string } };
+export type SocketData = { user: { id: string; name: string; email: string } };
 export type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
 
 /** A limit: at most `points` in `seconds`. */
@@ -48,36 +39,6 @@ export const productionSocketLimits: SocketLimits = {
 };
 
 const limiter = ({ points, seconds }: SocketLimitRule) => new RateLimiterMemory({ points, duration: seconds });
-
-const databaseUnavailable = {
-  code: 'database_unavailable',
-  message: 'The database is not reachable right now; nothing was changed. Try again in a moment.',
-};
-
-function failure(error: unknown) {
-  if (error instanceof ApiError) return { error: { code: error.code, message: error.message } };
-  if (isDatabaseUnavailable(error)) return { error: databaseUnavailable };
-  console.error('[realtime] handler failed:', error);
-  return { error: { code: 'internal', message: 'Something went wrong on the server.' } };
-}
-
-/** Wraps a handler: validates the payload, checks access, answers the ack with ok or an error. */
-function handle<P>(schema: z.ZodType<P>, run: (payload: P) => Promise<void>) {
-  return async (raw: unknown, ack?: Ack) => {
-    const reply: Ack = typeof ack === 'function' ? ack : () => {};
-    const parsed = schema.safeParse(raw);
-    if (!parsed.success) {
-      reply({ error: { code: 'invalid_input', message: parsed.error.issues[0]?.message ?? 'Invalid payload.' } });
-      return;
-    }
-    try {
-      await run(parsed.data);
-      reply({ ok: true });
-    } catch (error) {
-      reply(failure(error));
-    }
-  };
-}
 
 /** Attaches socket.io to the HTTP server: session from the cookie, rooms per team. */
 export function attachRealtime(
@@ -148,19 +109,7 @@ export function attachRealtime(
       );
     });
 
-    socket.on(
-      'team:join',
-      handle(teamRoomPayload, async ({ teamId }) => {
-        await requireTeam(db, socket.data.user.id, teamId);
-        await socket.join(teamRoom(teamId));
-      }),
-    );
-    socket.on(
-      'team:leave',
-      handle(teamRoomPayload, async ({ teamId }) => {
-        await socket.leave(teamRoom(teamId));
-      }),
-    );
+    teamRoomHandlers(socket, db);
   });
 
   // Membership is checked again at every send: someone removed from the Team since joining
@@ -173,16 +122,36 @@ export function attachRealtime(
     const room = teamRoom(teamId);
     const sockets = await io.in(room).fetchSockets();
     if (sockets.length === 0) return;
-    const rows = await db.select({ userId: member.userId }).from(member).where(eq(member.organizationId, teamId));
-    const members = new Set(rows.map((r) => r.userId));
+    const members = await teamMemberIds(db, teamId);
     for (const socket of sockets) {
       if (members.has(socket.data.user.id)) socket.emit(event, ...args);
       else socket.leave(room);
     }
   };
+  // A Review's room: the same check, and a payload made per listener where it must differ.
+  const sendToReview = async (reviewId: string, event: string, payload: unknown) => {
+    const room = reviewRoom(reviewId);
+    const sockets = await io.in(room).fetchSockets();
+    if (sockets.length === 0) return;
+    const listeners = await reviewListeners(db, reviewId);
+    for (const socket of sockets) {
+      const role = listeners.get(socket.data.user.id);
+      if (!role) {
+        socket.leave(room);
+        continue;
+      }
+      const body = typeof payload === 'function' ? payload({ userId: socket.data.user.id, role }) : payload;
+      (socket.emit as (event: string, body: unknown) => void)(event, body);
+    }
+  };
   const broadcast: Broadcast = {
-    toTeam(teamId, event, ...args) {
-      sendToMembers(teamId, event, ...args).catch((error: unknown) =>
+    toTeam(teamId, event, payload) {
+      sendToMembers(teamId, event, ...([payload] as Parameters<ServerToClientEvents[typeof event]>)).catch(
+        (error: unknown) => console.error('[realtime] broadcast failed:', error),
+      );
+    },
+    toReview(reviewId, event, payload) {
+      sendToReview(reviewId, event, payload).catch((error: unknown) =>
         console.error('[realtime] broadcast failed:', error),
       );
     },

@@ -2,12 +2,12 @@ import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 
 import { createDatabase } from '@/db/client';
-import type { Broadcast } from '@/realtime/events';
 import { attachRealtime, type SocketLimits } from '@/realtime/server';
 import { createApp } from '@/server/app';
 import { createAuth } from '@/server/auth/auth';
 import type { AuthLimits } from '@/server/auth/gate';
 import { createSmtpMailer } from '@/server/auth/mailer';
+import type { Broadcast } from '@/server/services/broadcast';
 
 export type ServerConfig = {
   databaseUrl: string;
@@ -32,8 +32,11 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
   const host = config.host ?? '127.0.0.1';
   const db = createDatabase(config.databaseUrl);
   // The app needs a broadcaster before socket.io exists; forward to it once attached.
-  let target: Broadcast | undefined;
-  const broadcast: Broadcast = { toTeam: (...args) => target?.toTeam(...args) };
+  const target: { current?: Broadcast } = {};
+  const broadcast: Broadcast = {
+    toTeam: (...args) => target.current?.toTeam(...args),
+    toReview: (...args) => target.current?.toReview(...args),
+  };
 
   const httpServer = createServer();
   await new Promise<void>((resolve, reject) => {
@@ -56,7 +59,7 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
   });
   httpServer.on('request', app);
   const realtime = attachRealtime(httpServer, { db, auth, origin, limits: config.socketLimits });
-  target = realtime.broadcast;
+  target.current = realtime.broadcast;
 
   return {
     url: origin,

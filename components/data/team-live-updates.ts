@@ -2,7 +2,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
 
 import { getRealtimeSocket } from '@/realtime/client';
-import type { Review } from '@/server/contracts/review';
+import { teamNews } from '@/realtime/events';
 
 import { activityKeys } from './activity';
 import { apiOrigin } from './origin';
@@ -24,7 +24,11 @@ export function useTeamLiveUpdates(teamId: string | undefined) {
       void qc.invalidateQueries({ queryKey: reviewKeys.team(teamId) });
       void qc.invalidateQueries({ queryKey: activityKeys.team(teamId) });
     };
-    const onReview = ({ review }: { review: Review }) => {
+    // A payload that does not match the contract never touches the cache.
+    const onReview = (raw: unknown) => {
+      const parsed = teamNews['review:updated'].safeParse(raw);
+      if (!parsed.success) return;
+      const { review } = parsed.data;
       if (review.teamId !== teamId) return;
       upsertReviewInCache(qc, review);
       void qc.invalidateQueries({ queryKey: activityKeys.team(teamId) });

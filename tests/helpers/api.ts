@@ -3,18 +3,18 @@ import supertest from 'supertest';
 import { inject } from 'vitest';
 
 import { createDatabase, type Database } from '@/db/client';
-import type { Broadcast } from '@/realtime/events';
 import { createApp } from '@/server/app';
 import { createAuth, type Auth } from '@/server/auth/auth';
 import type { AuthLimits } from '@/server/auth/gate';
 import { createSmtpMailer } from '@/server/auth/mailer';
+import type { Broadcast } from '@/server/services/broadcast';
 
 import { roomyAuthLimits, testSecret, uniqueEmail, verificationLink } from './test-server';
 
 /** The origin the test app believes it is served from; clients send it as `Origin`. */
 export const testOrigin = 'http://127.0.0.1:3999';
 
-export type Sent = { event: string; teamId: string; payload: unknown };
+export type Sent = { event: string; teamId?: string; reviewId?: string; payload: unknown };
 
 /** `createApp()` on the test database, without listening; broadcasts are recorded. */
 export function createTestApp(databaseUrl = inject('databaseUrl'), authLimits: AuthLimits = roomyAuthLimits) {
@@ -22,7 +22,10 @@ export function createTestApp(databaseUrl = inject('databaseUrl'), authLimits: A
   const mailer = createSmtpMailer({ host: '127.0.0.1', port: inject('smtpPort'), from: 'test@cyclemoot.test' });
   const auth = createAuth({ db, baseURL: testOrigin, secret: testSecret, mailer });
   const sent: Sent[] = [];
-  const broadcast: Broadcast = { toTeam: (teamId, event, payload) => void sent.push({ teamId, event, payload }) };
+  const broadcast: Broadcast = {
+    toTeam: (teamId, event, payload) => void sent.push({ teamId, event, payload }),
+    toReview: (reviewId, event, payload) => void sent.push({ reviewId, event, payload }),
+  };
   const app = createApp({ db, auth, broadcast, origin: testOrigin, authLimits });
   return { app, db, auth, sent, close: () => db.$client.end() };
 }

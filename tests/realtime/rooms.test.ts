@@ -26,6 +26,11 @@ function open(cookie?: string): Promise<Client> {
   });
 }
 
+/** Resolves once `done()` holds; the test's own timeout bounds the wait. */
+async function until(done: () => boolean): Promise<void> {
+  while (!done()) await new Promise((r) => setTimeout(r, 5));
+}
+
 beforeAll(async () => {
   server = await startTestServer();
 });
@@ -52,13 +57,20 @@ describe('team rooms', () => {
     const invalid = await outsiderSocket.emitWithAck('team:join', { teamId: 42 } as never);
     expect(invalid).toMatchObject({ error: { code: 'invalid_input' } });
 
-    let outsiderHeard = false;
-    outsiderSocket.on('review:created', () => (outsiderHeard = true));
+    // The outsider is a member of a Team of its own, in whose room it hears its own news.
+    const ownTeamId = await startTeam(outsider, 'Outsider team');
+    expect(await outsiderSocket.emitWithAck('team:join', { teamId: ownTeamId })).toEqual({ ok: true });
+    const outsiderHeard: string[] = [];
+    outsiderSocket.on('review:created', ({ review }) => outsiderHeard.push(review.name));
+
     const heard = new Promise<{ review: { name: string } }>((resolve) => ownerSocket.once('review:created', resolve));
     await owner.agent.post(`/api/teams/${teamId}/reviews`).send({ name: 'Announced review' }).expect(201);
     expect((await heard).review.name).toBe('Announced review');
-    await new Promise((r) => setTimeout(r, 200));
-    expect(outsiderHeard).toBe(false);
+    // Then news the outsider is owed: one connection delivers in order, so once this has
+    // arrived, anything the server had sent it about the other Team has arrived too.
+    await outsider.agent.post(`/api/teams/${ownTeamId}/reviews`).send({ name: 'Own review' }).expect(201);
+    await until(() => outsiderHeard.includes('Own review'));
+    expect(outsiderHeard).toEqual(['Own review']);
   });
 
   it('stops telling a member who was removed from the Team', async () => {
@@ -74,6 +86,8 @@ describe('team rooms', () => {
       .expect(200);
 
     const leaverSocket = await open(leaver.cookie);
+    const ownerSocket = await open(owner.cookie);
+    expect(await ownerSocket.emitWithAck('team:join', { teamId })).toEqual({ ok: true });
     expect(await leaverSocket.emitWithAck('team:join', { teamId })).toEqual({ ok: true });
     const first = new Promise((resolve) => leaverSocket.once('review:created', resolve));
     await owner.agent.post(`/api/teams/${teamId}/reviews`).send({ name: 'Heard by all' }).expect(201);
@@ -83,10 +97,18 @@ describe('team rooms', () => {
       .post('/api/auth/organization/remove-member')
       .send({ memberIdOrEmail: leaver.email, organizationId: teamId })
       .expect(200);
-    let heardAfter = false;
-    leaverSocket.on('review:created', () => (heardAfter = true));
+    const ownTeamId = await startTeam(leaver, 'Leaver team');
+    expect(await leaverSocket.emitWithAck('team:join', { teamId: ownTeamId })).toEqual({ ok: true });
+    const heardAfter: string[] = [];
+    leaverSocket.on('review:created', ({ review }) => heardAfter.push(review.name));
+    const ownerHeard = new Promise((resolve) => ownerSocket.once('review:created', resolve));
     await owner.agent.post(`/api/teams/${teamId}/reviews`).send({ name: 'Not for leavers' }).expect(201);
-    await new Promise((r) => setTimeout(r, 300));
-    expect(heardAfter).toBe(false);
+    await ownerHeard;
+    // As above: news for the leaver's own Team, sent later on the same connection, marks the point.
+    await leaver.agent.post(`/api/teams/${ownTeamId}/reviews`).send({ name: 'Own review' }).expect(201);
+    await until(() => heardAfter.includes('Own review'));
+    expect(heardAfter).toEqual(['Own review']);
+    // Rejoining is refused too.
+    expect(await leaverSocket.emitWithAck('team:join', { teamId })).toMatchObject({ error: { code: 'not_found' } });
   });
 });

@@ -7,6 +7,7 @@ import { review } from '@/db/schema';
 import { createApp } from '@/server/app';
 import { createAuth } from '@/server/auth/auth';
 import { createSmtpMailer } from '@/server/auth/mailer';
+import { noBroadcast } from '@/server/services/broadcast';
 
 import { createTeam, createTestApp, signUp, testPassword, type TestUser } from '../helpers/api';
 import { roomyAuthLimits, testSecret } from '../helpers/test-server';
@@ -82,7 +83,7 @@ describe('the session cookie over https', () => {
     try {
       const mailer = createSmtpMailer({ host: '127.0.0.1', port: inject('smtpPort'), from: 'test@cyclemoot.test' });
       const auth = createAuth({ db, baseURL: origin, secret: testSecret, mailer });
-      const app = createApp({ db, auth, broadcast: { toTeam() {} }, origin, authLimits: roomyAuthLimits });
+      const app = createApp({ db, auth, broadcast: noBroadcast, origin, authLimits: roomyAuthLimits });
       const res = await supertest(app)
         .post('/api/auth/sign-in/email')
         .set('Origin', origin)

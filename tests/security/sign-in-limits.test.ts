@@ -4,6 +4,7 @@ import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
 import { productionAuthLimits } from '@/server/auth/gate';
+import { noBroadcast } from '@/server/services/broadcast';
 
 import { createTestApp, signUp, testOrigin, testPassword, type TestUser } from '../helpers/api';
 import { startTestServer, uniqueEmail } from '../helpers/test-server';
@@ -139,7 +140,7 @@ describe('many sign-ups from one client', () => {
     const proxied = createApp({
       db: guarded.db,
       auth: guarded.auth,
-      broadcast: { toTeam() {} },
+      broadcast: noBroadcast,
       origin: testOrigin,
       trustProxy: 'loopback',
       authLimits: productionAuthLimits,
