@@ -2,7 +2,9 @@ import { z } from 'zod';
 
 // Postgres refuses NUL in text, and a lone UTF-16 surrogate cannot be encoded as UTF-8:
 // both turned into 500s. Other control characters are invisible on screen and in exports.
+// eslint-disable-next-line no-control-regex -- finding control characters is the point
 const controlInLine = /[\u0000-\u001F\u007F]/;
+// eslint-disable-next-line no-control-regex -- likewise, tab and line breaks allowed
 const controlInBlock = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
 const loneSurrogate = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 

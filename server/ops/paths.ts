@@ -8,7 +8,6 @@ export const repoRoot = path.resolve(__dirname, '..', '..');
 function traversableByOthers(dir: string): boolean {
   for (let d = dir; ; d = path.dirname(d)) {
     try {
-      // eslint-disable-next-line no-bitwise
       if ((statSync(d).mode & 0o001) === 0) return false;
     } catch {
       return false;

@@ -32,7 +32,7 @@ function totals(): { passed: number; failed: number; skipped: number } | undefin
 }
 
 /**
- * `npm test`: types and formatting, Chromium and the web bundle (the browser tests need
+ * `npm test`: types, lint and formatting (each runs and reports, whatever the others found), Chromium and the web bundle (the browser tests need
  * both), then every vitest suite. Postgres and the mail fake are started by the vitest
  * global setup, so a single test file also runs on its own with `npx vitest run <file>`.
  * Arguments (`npm test -- tests/server`) narrow the vitest run and skip the static checks.
@@ -40,16 +40,22 @@ function totals(): { passed: number; failed: number; skipped: number } | undefin
 function main() {
   const started = Date.now();
   const narrowed = process.argv.length > 2;
-  let status = 0;
+  // Every static check runs, whatever the one before it found; all failures are listed at the end.
+  const failedChecks: string[] = [];
+  const check = (label: string, args: string[]) => {
+    if (run(label, args) !== 0) failedChecks.push(label);
+  };
   if (!narrowed) {
-    status ||= run('typecheck (app and server)', [bin('typescript', 'bin/tsc'), '--noEmit', '-p', 'tsconfig.json']);
-    status ||= run('typecheck (engine, no Node types)', [
-      bin('typescript', 'bin/tsc'),
-      '--noEmit',
-      '-p',
-      'server/engine/tsconfig.json',
+    const tsc = bin('typescript', 'bin/tsc');
+    check('typecheck (app and server)', [tsc, '--noEmit', '-p', 'tsconfig.json']);
+    check('typecheck (engine, no Node types)', [tsc, '--noEmit', '-p', 'server/engine/tsconfig.json']);
+    check('lint (ESLint: typescript-eslint, react-hooks, import boundaries)', [
+      bin('eslint', 'bin/eslint.js'),
+      '--max-warnings',
+      '0',
+      '.',
     ]);
-    status ||= run('formatting', [bin('prettier', 'bin/prettier.cjs'), '--check', '--log-level', 'warn', '.']);
+    check('formatting', [bin('prettier', 'bin/prettier.cjs'), '--check', '--log-level', 'warn', '.']);
   }
   ensureChromium();
   ensureWebBuild();
@@ -62,11 +68,11 @@ function main() {
     `--outputFile.json=${reportFile}`,
     ...process.argv.slice(2),
   ]);
-  status ||= vitest;
   const t = totals();
   console.log(`npm test finished in ${((Date.now() - started) / 1000).toFixed(1)} s`);
-  if (status !== 0 && vitest === 0) console.log('[test] static checks failed: see above');
+  for (const label of failedChecks) console.log(`[test] static check failed: ${label} (see above)`);
   if (t) console.log(`Tests: ${t.passed} passed, ${t.failed} failed${t.skipped ? `, ${t.skipped} skipped` : ''}`);
+  const status = failedChecks.length > 0 || vitest !== 0 ? 1 : 0;
   process.exit(status);
 }
 

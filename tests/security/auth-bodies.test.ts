@@ -54,7 +54,10 @@ function streamBody(path: string, bytes: number, { chunked = false } = {}) {
     const chunk = 'x'.repeat(64 * 1024);
     const pump = () => {
       if (answered) return req.destroy();
-      if (sent === 0) ((sent += head.length), req.write(head));
+      if (sent === 0) {
+        sent += head.length;
+        req.write(head);
+      }
       while (sent < bytes - 2) {
         const piece = chunk.slice(0, Math.min(chunk.length, bytes - 2 - sent));
         sent += piece.length;

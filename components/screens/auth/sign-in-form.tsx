@@ -9,7 +9,6 @@ import { isApiError } from '@/components/data/api-error';
 import { Button } from '@/components/ui/button';
 import { emailInput, Field, FormError } from '@/components/ui/field';
 import { messageFor } from '@/components/ui/message-for';
-import { Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
 import { useField } from '@/components/ui/use-field';
 

@@ -213,7 +213,6 @@ export function runTrain(s: TrainSetup, combustorInletEnthalpy: number, pass: Tr
     pass.isentropicK[j] = isentropicK;
     record(pass, k, exitK, exitEnthalpy, fuelKg);
     h = exitEnthalpy;
-    t = exitK;
     if (j === m) break;
     if (!(s.reheatK > exitK)) {
       throw new EngineInputError(
