@@ -10,8 +10,11 @@ const inputs = [
   'app',
   'components',
   'assets',
+  'public',
   'realtime',
   'server/contracts',
+  // The contracts take their limits from the engine.
+  'server/engine',
   'app.json',
   'metro.config.js',
   'babel.config.js',
