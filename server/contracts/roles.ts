@@ -9,6 +9,8 @@ export const statements = {
   ...defaultStatements,
   review: ['create', 'update', 'archive'],
   candidate: ['create', 'update', 'delete'],
+  basis: ['update'],
+  round: ['open', 'close'],
   comment: ['create'],
   vote: ['cast'],
   decision: ['sign'],
@@ -28,6 +30,7 @@ export const roleLabels: Record<TeamRole, string> = {
   observer: 'Observer',
 };
 
+/** Engineers, Reviewers and the Lead comment and vote; the Owner runs the Team and comments. */
 const discuss = { comment: ['create'], vote: ['cast'] } as const;
 
 export const roles = {
@@ -37,13 +40,17 @@ export const roles = {
     invitation: ['create', 'cancel'],
     review: ['create', 'update', 'archive'],
     candidate: ['create', 'update', 'delete'],
+    basis: ['update'],
+    round: ['open', 'close'],
     decision: ['sign'],
     liveSession: ['gather'],
-    ...discuss,
+    comment: ['create'],
   }),
   lead: accessControl.newRole({
     review: ['create', 'update', 'archive'],
     candidate: ['create', 'update', 'delete'],
+    basis: ['update'],
+    round: ['open', 'close'],
     decision: ['sign'],
     liveSession: ['gather'],
     ...discuss,

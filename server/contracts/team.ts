@@ -90,6 +90,15 @@ export const activityKinds = [
   'review:summary-changed',
   'review:archived',
   'review:restored',
+  // The live board (detail carries the review's and the candidate's names at the time).
+  'basis:updated',
+  'candidate:added',
+  'candidate:renamed',
+  'candidate:status-changed',
+  'candidate:recomputed',
+  'round:opened',
+  'round:closed',
+  'comment:posted',
 ] as const;
 export type ActivityKind = (typeof activityKinds)[number];
 

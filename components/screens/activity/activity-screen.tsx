@@ -29,6 +29,22 @@ function describeActivity(a: Activity): string {
       return `archived the Review “${str(d.name)}”`;
     case 'review:restored':
       return `restored the Review “${str(d.name)}”`;
+    case 'basis:updated':
+      return `changed the design basis of “${str(d.reviewName)}”`;
+    case 'candidate:added':
+      return `added the candidate “${str(d.name)}” to “${str(d.reviewName)}”`;
+    case 'candidate:renamed':
+      return `renamed the candidate “${str(d.from)}” to “${str(d.to)}”`;
+    case 'candidate:status-changed':
+      return `marked the candidate “${str(d.name)}” ${str(d.statusLabel).toLowerCase()}`;
+    case 'candidate:recomputed':
+      return `changed the parameters of “${str(d.name)}”`;
+    case 'round:opened':
+      return `opened preference round ${str(String(d.number ?? ''))} in “${str(d.reviewName)}”`;
+    case 'round:closed':
+      return `closed preference round ${str(String(d.number ?? ''))} in “${str(d.reviewName)}”`;
+    case 'comment:posted':
+      return `commented in “${str(d.reviewName)}”`;
     default: {
       const name = str(d.name);
       return (a.kind as string).replace(/[:._-]+/g, ' ') + (name ? ` “${name}”` : '');
