@@ -147,3 +147,20 @@ export const comment = pgTable(
     check('comment_body_length', sql`char_length(${table.body}) between 1 and 5000`),
   ],
 );
+
+/**
+ * Who is gathering a review's room, and to which candidate: kept in the database so a
+ * rejoining client (or another server process) finds the Lead where they are now.
+ */
+export const liveGathering = pgTable('live_gathering', {
+  reviewId: uuid('review_id')
+    .primaryKey()
+    .references(() => review.id, { onDelete: 'cascade' }),
+  candidateId: uuid('candidate_id')
+    .notNull()
+    .references(() => candidate.id, { onDelete: 'cascade' }),
+  byId: text('by_id')
+    .notNull()
+    .references(() => user.id, { onDelete: 'cascade' }),
+  startedAt: timestamp('started_at', { withTimezone: true }).notNull().defaultNow(),
+});

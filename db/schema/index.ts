@@ -2,6 +2,7 @@ export * from './auth';
 export * from './review';
 export * from './activity';
 export * from './board';
+export * from './settings';
 
 /**
  * The product's words for better-auth's generated tables: a Team is an `organization`, a

@@ -1,0 +1,14 @@
+import { pgTable, text, timestamp } from 'drizzle-orm/pg-core';
+
+import { user } from './auth';
+
+/** A person's own settings, kept with the account (not per device). */
+export const userSetting = pgTable('user_setting', {
+  userId: text('user_id')
+    .primaryKey()
+    .references(() => user.id, { onDelete: 'cascade' }),
+  unitSystem: text('unit_system', { enum: ['si', 'us'] })
+    .notNull()
+    .default('si'),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+});
