@@ -16,6 +16,10 @@ export type Ack = (result: { ok: true } | AckError) => void;
 export type ClientToServerEvents = {
   'team:join': (payload: { teamId: string }, ack?: Ack) => void;
   'team:leave': (payload: { teamId: string }, ack?: Ack) => void;
+  'review:join': (payload: { reviewId: string }, ack?: Ack) => void;
+  'review:leave': (payload: { reviewId: string }, ack?: Ack) => void;
+  'presence:viewing': (payload: { reviewId: string; candidateId: string | null }, ack?: Ack) => void;
+  'room:gather': (payload: { reviewId: string; candidateId: string | null }, ack?: Ack) => void;
 };
 
 export const teamRoomPayload = z.strictObject({
