@@ -41,6 +41,9 @@ export const convert = {
     system === 'si' || kW >= 1000 ? { amount: kW / 1000, unit: 'MW' } : { amount: kW * 1.341022, unit: 'hp' },
   massFlow: (kgPerS: number, system: UnitSystem): Converted =>
     system === 'si' ? { amount: kgPerS, unit: 'kg/s' } : { amount: kgPerS * 2.204623, unit: 'lb/s' },
+  // Specific entropy and specific heat: Btu_IT/(lb·°R) has the size of Btu_IT/(lb·°F).
+  entropy: (kJPerKgK: number, system: UnitSystem): Converted =>
+    system === 'si' ? { amount: kJPerKgK, unit: 'kJ/(kg·K)' } : { amount: kJPerKgK * 0.2388459, unit: 'Btu/(lb·°R)' },
   specificWork: (kJPerKg: number, system: UnitSystem): Converted =>
     system === 'si' ? { amount: kJPerKg, unit: 'kJ/kg' } : { amount: kJPerKg * 0.4299226, unit: 'Btu/lb' },
   heatRate: (kJPerKWh: number, system: UnitSystem): Converted =>
@@ -75,6 +78,10 @@ export function massFlow(kgPerS: number, system: UnitSystem): Formatted {
 
 export function specificWork(kJPerKg: number, system: UnitSystem): Formatted {
   return shown(convert.specificWork(kJPerKg, system));
+}
+
+export function entropy(kJPerKgK: number, system: UnitSystem): Formatted {
+  return shown(convert.entropy(kJPerKgK, system));
 }
 
 export function heatRate(kJPerKWh: number, system: UnitSystem): Formatted {
