@@ -26,5 +26,24 @@ export const teamRoomPayload = z.strictObject({
   teamId: z.string({ error: 'teamId must be text.' }).min(1, 'teamId is required.').max(100),
 });
 
+const id = (name: string) =>
+  z
+    .string({ error: `${name} must be text.` })
+    .min(1, `${name} is required.`)
+    .max(100, `${name} is at most 100 characters.`);
+
+export const reviewRoomPayload = z.strictObject({ reviewId: id('reviewId') });
+export type ReviewRoomPayload = z.infer<typeof reviewRoomPayload>;
+
+/** `candidateId: null` is the board as a whole (or, for `room:gather`, stop gathering). */
+const candidateChoice = z.strictObject({
+  reviewId: id('reviewId'),
+  candidateId: id('candidateId').nullable(),
+});
+export const viewingPayload = candidateChoice;
+export type ViewingPayload = z.infer<typeof viewingPayload>;
+export const gatherPayload = candidateChoice;
+export type GatherPayload = z.infer<typeof gatherPayload>;
+
 export const teamRoom = (teamId: string) => `team:${teamId}`;
 export const reviewRoom = (reviewId: string) => `review:${reviewId}`;

@@ -1,20 +1,28 @@
 import type { Server as HttpServer } from 'node:http';
 
+import { createAdapter } from '@socket.io/postgres-adapter';
 import { fromNodeHeaders } from 'better-auth/node';
 import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
-import { Server } from 'socket.io';
+import { Server, type Socket } from 'socket.io';
 
 import type { Database } from '@/db/client';
 import type { Auth } from '@/server/auth/auth';
 import { isDatabaseUnavailable } from '@/server/http/database-errors';
 import { reviewListeners, teamMemberIds } from '@/server/services/access';
 import type { Broadcast } from '@/server/services/broadcast';
+import { closeAdapterPool, ensureSocketAttachments, openAdapterPool } from '@/server/services/live';
 
 import { reviewRoom, teamRoom, type Ack, type ClientToServerEvents, type ServerToClientEvents } from './events';
+import { createReviewRoom } from './handlers/review-room';
 import { teamRoomHandlers } from './handlers/team-room';
 
-export type SocketData = { user: { id: string; name: string; email: string } };
+export type SocketData = {
+  user: { id: string; name: string; email: string };
+  /** Per joined review: the candidate this tab looks at (null: the board) and when it chose (ms). */
+  viewing?: Record<string, { candidateId: string | null; at: number }>;
+};
 export type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
+export type RealtimeSocket = Socket<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
 
 /** A limit: at most `points` in `seconds`. */
 export type SocketLimitRule = { points: number; seconds: number };
@@ -50,7 +58,19 @@ export function attachRealtime(
     limits = productionSocketLimits,
   }: { db: Database; auth: Auth; origin: string; limits?: SocketLimits },
 ) {
+  // More than one server process: rooms, broadcasts and fetchSockets span every process on
+  // this database through LISTEN/NOTIFY (payloads over 8000 bytes go through a table).
+  const adapterPool = openAdapterPool(db);
+  ensureSocketAttachments(adapterPool).catch((error: unknown) =>
+    console.error('[realtime] the adapter table could not be made:', error),
+  );
   const io: RealtimeServer = new Server(httpServer, {
+    adapter: createAdapter(adapterPool, {
+      // A process that stops says so; one that dies is dropped after `heartbeatTimeout`.
+      heartbeatInterval: 2_000,
+      heartbeatTimeout: 6_000,
+      errorHandler: (error) => console.error('[realtime] adapter:', error.message),
+    }),
     cors: { origin, credentials: true },
     maxHttpBufferSize: 64 * 1024,
     serveClient: false,
@@ -110,6 +130,7 @@ export function attachRealtime(
     });
 
     teamRoomHandlers(socket, db);
+    boards.register(socket);
   });
 
   // Membership is checked again at every send: someone removed from the Team since joining
@@ -155,6 +176,15 @@ export function attachRealtime(
         console.error('[realtime] broadcast failed:', error),
       );
     },
+  };
+  const boards = createReviewRoom({ io, db, broadcast });
+  // Closing: no new presence work, sockets out, tell the other processes, then the pool.
+  const closeIo = io.close.bind(io);
+  io.close = async (fn) => {
+    boards.close();
+    await closeIo();
+    await closeAdapterPool(adapterPool).catch(() => {});
+    fn?.();
   };
   return { io, broadcast };
 }

@@ -1,0 +1,117 @@
+import { io as connect, type Socket } from 'socket.io-client';
+
+import type { Database } from '@/db/client';
+import { candidate } from '@/db/schema';
+import type { ClientToServerEvents, ServerToClientEvents } from '@/realtime/events';
+import type { Auth } from '@/server/auth/auth';
+import type { ReviewNews } from '@/server/contracts/news';
+import type { TeamRole } from '@/server/contracts/roles';
+
+import { createTeam, signUp, type TestUser } from '../helpers/api';
+
+/** Shared by the live board's socket tests: a Team on a real server, clients, and waiting. */
+
+export type Client = Socket<ServerToClientEvents, ClientToServerEvents>;
+export type AckResult = { ok: true } | { error: { code: string; message: string; field?: string } };
+
+/** A socket.io client of `baseURL` with `cookie`, sending the app's Origin; resolves when connected. */
+export function openClient(baseURL: string, cookie: string | undefined, opened: Client[]): Promise<Client> {
+  const socket: Client = connect(baseURL, {
+    transports: ['websocket'],
+    extraHeaders: cookie ? { cookie, origin: baseURL } : { origin: baseURL },
+    reconnection: false,
+    forceNew: true,
+  });
+  opened.push(socket);
+  return new Promise((resolve, reject) => {
+    socket.once('connect', () => resolve(socket));
+    socket.once('connect_error', reject);
+  });
+}
+
+/** Resolves once `done()` holds; the test's own timeout bounds the wait. */
+export async function until(done: () => boolean): Promise<void> {
+  while (!done()) await new Promise((r) => setTimeout(r, 5));
+}
+
+/** Everything `socket` hears of `event`, in order. */
+export function heard<E extends keyof ReviewNews>(socket: Client, event: E): Array<ReviewNews[E]> {
+  const got: Array<ReviewNews[E]> = [];
+  (socket.on as (event: string, listener: (payload: ReviewNews[E]) => void) => void)(event, (payload) =>
+    got.push(payload),
+  );
+  return got;
+}
+
+/** The next `event` on `socket` that `match` accepts. */
+export function next<E extends keyof ReviewNews>(
+  socket: Client,
+  event: E,
+  match: (payload: ReviewNews[E]) => boolean = () => true,
+): Promise<ReviewNews[E]> {
+  return new Promise((resolve) => {
+    const on = socket.on as (event: string, listener: (payload: ReviewNews[E]) => void) => void;
+    const off = socket.off as (event: string, listener: (payload: ReviewNews[E]) => void) => void;
+    const listener = (payload: ReviewNews[E]) => {
+      if (!match(payload)) return;
+      off.call(socket, event, listener);
+      resolve(payload);
+    };
+    on.call(socket, event, listener);
+  });
+}
+
+/** Names of the people in a presence payload, with what each looks at. */
+export const seen = (payload: ReviewNews['presence:changed']) =>
+  payload.people.map((p) => `${p.name}:${p.candidateId ?? 'board'}`);
+
+export type BoardTeam = Record<TeamRole, TestUser> & { teamId: string; reviewId: string; candidates: string[] };
+
+/**
+ * A Team with one person in each role (signed up on the real server at `baseURL`), a Review
+ * its Lead made there, and `candidateCount` candidates. Candidates are written straight to
+ * their table: the room only needs them to exist, not to be computed.
+ */
+export async function boardTeam(
+  ctx: { db: Database; auth: Auth },
+  baseURL: string,
+  label: string,
+  candidateCount = 3,
+): Promise<BoardTeam> {
+  const people = {} as Record<TeamRole, TestUser>;
+  for (const role of ['owner', 'lead', 'engineer', 'reviewer', 'observer'] as const) {
+    people[role] = await signUp(baseURL, `${label} ${role[0].toUpperCase()}${role.slice(1)}`);
+  }
+  const teamId = await createTeam(
+    ctx,
+    people.owner,
+    (['lead', 'engineer', 'reviewer', 'observer'] as const).map((role) => ({ user: people[role], role })),
+  );
+  const reviewId = await addReview(people.lead, teamId, `${label} review`);
+  const candidates = await addCandidates(ctx.db, reviewId, candidateCount);
+  return { ...people, teamId, reviewId, candidates };
+}
+
+export async function addReview(by: TestUser, teamId: string, name: string): Promise<string> {
+  const created = await by.agent.post(`/api/teams/${teamId}/reviews`).send({ name });
+  if (created.status !== 201)
+    throw new Error(`review create failed: ${created.status} ${JSON.stringify(created.body)}`);
+  return created.body.id as string;
+}
+
+export async function addCandidates(db: Database, reviewId: string, n: number): Promise<string[]> {
+  const rows = await db
+    .insert(candidate)
+    .values(
+      Array.from({ length: n }, (_, i) => ({
+        reviewId,
+        name: `Candidate ${i + 1}`,
+        colourIndex: i,
+        position: i,
+        parameters: {},
+        input: {},
+      })),
+    )
+    .returning({ id: candidate.id });
+  return rows.map((r) => r.id);
+}
