@@ -4,13 +4,17 @@ import helmet from 'helmet';
 import type { Database } from '@/db/client';
 import type { Auth } from '@/server/auth/auth';
 import { authGate, type AuthLimits } from '@/server/auth/gate';
+import type { Mailer } from '@/server/auth/mailer';
 import { apiNotFound, errorHandler, requestId } from '@/server/http/handlers';
 import { refuseForeignOrigin } from '@/server/http/origin';
 import { requireSession } from '@/server/http/session';
 import { serveWebBundle } from '@/server/http/web-bundle';
+import { commentsRouter } from '@/server/routes/comments';
 import { cyclesRouter } from '@/server/routes/cycles';
 import { publicRouter } from '@/server/routes/public';
 import { reviewsRouter } from '@/server/routes/reviews';
+import { roundsRouter } from '@/server/routes/rounds';
+import { settingsRouter } from '@/server/routes/settings';
 import { teamsRouter } from '@/server/routes/teams';
 import type { Broadcast } from '@/server/services/broadcast';
 
@@ -26,14 +30,30 @@ export type AppDeps = {
    */
   trustProxy?: boolean | number | string;
   authLimits?: AuthLimits;
+  /**
+   * Sends the product's own mails (a comment's @mentions). Without one (an app built for a
+   * test that reads no mail) mentions are still resolved and stored, and nobody is mailed.
+   */
+  mailer?: Mailer;
   /** The exported web bundle (dist/); the API alone when absent. */
   webDir?: string;
 };
 
 const jsonBodyLimit = '256kb';
 
+const noMail: Mailer = { async send() {} };
+
 /** Builds the Express app; `server/index.ts` listens, tests use it as it is. */
-export function createApp({ db, auth, broadcast, origin, trustProxy = false, authLimits, webDir }: AppDeps): Express {
+export function createApp({
+  db,
+  auth,
+  broadcast,
+  origin,
+  trustProxy = false,
+  authLimits,
+  mailer = noMail,
+  webDir,
+}: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', trustProxy);
@@ -50,6 +70,9 @@ export function createApp({ db, auth, broadcast, origin, trustProxy = false, aut
   app.use('/api', teamsRouter({ db }));
   app.use('/api', reviewsRouter({ db, broadcast }));
   app.use('/api/cycles', cyclesRouter());
+  app.use('/api', roundsRouter({ db, broadcast }));
+  app.use('/api', commentsRouter({ db, broadcast, mailer, origin }));
+  app.use('/api', settingsRouter({ db }));
   app.use('/api', apiNotFound);
 
   serveWebBundle(app, webDir);

@@ -55,6 +55,7 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
     origin,
     trustProxy: config.trustProxy,
     authLimits: config.authLimits,
+    mailer,
     webDir: config.webDir,
   });
   httpServer.on('request', app);

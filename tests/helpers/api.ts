@@ -26,7 +26,7 @@ export function createTestApp(databaseUrl = inject('databaseUrl'), authLimits: A
     toTeam: (teamId, event, payload) => void sent.push({ teamId, event, payload }),
     toReview: (reviewId, event, payload) => void sent.push({ reviewId, event, payload }),
   };
-  const app = createApp({ db, auth, broadcast, origin: testOrigin, authLimits });
+  const app = createApp({ db, auth, broadcast, origin: testOrigin, authLimits, mailer });
   return { app, db, auth, sent, close: () => db.$client.end() };
 }
 
