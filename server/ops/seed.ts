@@ -1,11 +1,13 @@
-import { count, inArray } from 'drizzle-orm';
+import { and, asc, count, eq, inArray } from 'drizzle-orm';
 
 import type { Database } from '@/db/client';
-import { user } from '@/db/schema';
+import { candidate, review, user } from '@/db/schema';
 import { createAuth } from '@/server/auth/auth';
 import type { TeamRole } from '@/server/contracts/roles';
 import { noBroadcast } from '@/server/services/broadcast';
+import { postComment } from '@/server/services/comments';
 import { createReview } from '@/server/services/reviews';
+import { castBallot, closeRound, openRound } from '@/server/services/rounds';
 
 /**
  * Demo data, a scenario of our own: Tindra Kraft, an invented northern utility, chooses
@@ -79,4 +81,74 @@ export async function seedDemo(db: Database) {
     await createReview({ db, broadcast: noBroadcast, actorId: ids.lead }, teamId, r);
   }
   return { teamId };
+}
+
+/**
+ * The first demo review's discussion: one closed preference round and a few comments, through
+ * the services (so Activity is written as for anyone). Runs after the review has its
+ * candidates; it finds them by the review and by preset.
+ */
+export async function seedDemoDiscussion(db: Database, teamId: string, ids: Record<TeamRole, string>) {
+  const [first] = await db
+    .select({ id: review.id })
+    .from(review)
+    .where(and(eq(review.teamId, teamId), eq(review.name, demoReviews[0].name)))
+    .limit(1);
+  if (!first) throw new Error('The first demo review is missing; seed the reviews first.');
+  const found = await db
+    .select({ id: candidate.id, preset: candidate.preset })
+    .from(candidate)
+    .where(eq(candidate.reviewId, first.id))
+    .orderBy(asc(candidate.position));
+  if (found.length < 3) throw new Error('The first demo review needs its candidates before its discussion.');
+  // By preset where the candidates have one, else by their place on the board.
+  const pick = (preset: string, place: number) => (found.find((c) => c.preset === preset) ?? found[place]).id;
+  const simple = pick('simple', 0);
+  const regenerative = pick('regenerative', 1);
+  const intercooled = pick('intercooled', 2);
+
+  const as = (role: TeamRole) => ({ db, broadcast: noBroadcast, actorId: ids[role] });
+  const listener = (role: TeamRole) => ({ userId: ids[role], role });
+
+  const opened = await openRound(as('lead'), first.id, { votesPerPerson: 3, blind: false }, listener('lead'));
+  const ballots: Array<[TeamRole, Record<string, number>]> = [
+    ['lead', { [simple]: 1, [regenerative]: 2 }],
+    ['engineer', { [regenerative]: 2, [intercooled]: 1 }],
+    ['reviewer', { [simple]: 2, [regenerative]: 1 }],
+  ];
+  for (const [role, votes] of ballots) await castBallot(as(role), first.id, opened.id, votes, listener(role));
+  await closeRound(as('lead'), first.id, opened.id, listener('lead'));
+
+  const post = (role: TeamRole, clientId: string, body: string, at: { candidateId?: string; parentId?: string }) =>
+    postComment(as(role), first.id, { body, clientId, ...at }).then((p) => p.comment.id);
+  const question = await post(
+    'reviewer',
+    'demo-comment-01',
+    'With about 600 fired hours a year, does the fuel a recuperator saves ever pay for it? ' +
+      '@Aiko Brennan, could you weigh it against the slower start?',
+    {},
+  );
+  await post(
+    'engineer',
+    'demo-comment-02',
+    'I will run the pressure-ratio sweep on the regenerative candidate before the next round and bring ' +
+      'the fuel use per start alongside the start time.',
+    { parentId: question },
+  );
+  await post(
+    'lead',
+    'demo-comment-03',
+    'The simple cycle stays our reference: the fastest start and the fewest parts to keep up at a site this cold.',
+    { candidateId: simple },
+  );
+  const intercooling = await post(
+    'engineer',
+    'demo-comment-04',
+    'Intercooling needs a cooler loop of its own, and at a −15 °C design ambient it gains little. ' +
+      '@Tomas Varga, shall we set it aside?',
+    { candidateId: intercooled },
+  );
+  await post('lead', 'demo-comment-05', 'Keep it proposed until the second round; Rafael wants to see the sweep.', {
+    parentId: intercooling,
+  });
 }
