@@ -286,3 +286,97 @@ export function reportViewing(reviewId: string, candidateId: string | null) {
 export function gatherRoom(reviewId: string, candidateId: string | null) {
   return getRealtimeSocket(apiOrigin()).emitWithAck('room:gather', { reviewId, candidateId });
 }
+
+// ── The engine, for previews and sweeps of unsaved values ───────────────────────────────
+
+/** What POST /api/cycles/evaluate answers (the engine's CycleResult as JSON). */
+export type CycleResultWire = {
+  states: Array<{
+    n: number;
+    label: string;
+    temperatureK: number;
+    pressureKPa: number;
+    enthalpyKJPerKg: number;
+    entropyKJPerKgK: number;
+    massFlowRatio: number;
+  }>;
+  compressorWorkKJPerKg: number;
+  turbineWorkKJPerKg: number;
+  netWorkKJPerKg: number;
+  heatInputKJPerKg: number;
+  thermalEfficiency: number;
+  backWorkRatio: number;
+  regeneratorDutyKJPerKg: number;
+  exhaustTemperatureK: number;
+  fuelAirRatio: number | null;
+  fuelLowerHeatingValueKJPerKg: number | null;
+  airMassFlowKgPerS: number | null;
+  fuelMassFlowKgPerS: number | null;
+  heatRateKJPerKWh: number | null;
+  co2KgPerMWh: number | null;
+  paths: Array<{
+    kind:
+      'compression' | 'expansion' | 'heat-addition' | 'heat-rejection' | 'regenerator-heating' | 'regenerator-cooling';
+    from: number;
+    to: number;
+    temperatureK: number[];
+    entropyKJPerKgK: number[];
+  }>;
+  warnings: Array<{ code: string; message: string; field?: string }>;
+};
+
+export type SweepFiguresWire = {
+  netWorkKJPerKg: number;
+  thermalEfficiency: number;
+  exhaustTemperatureK: number;
+  heatRateKJPerKWh: number | null;
+  warningCodes: string[];
+};
+export type SweepOptimumWire = { value: number; figures: SweepFiguresWire; atRangeEnd: boolean };
+/** What POST /api/cycles/sweep answers. */
+export type SweepResultWire = {
+  parameter: string;
+  from: number;
+  to: number;
+  points: Array<{
+    value: number;
+    figures: SweepFiguresWire | null;
+    error: { field: string; message: string } | null;
+  }>;
+  optimumNetWork: SweepOptimumWire | null;
+  optimumEfficiency: SweepOptimumWire | null;
+};
+
+export const cycleKeys = {
+  evaluate: (input: unknown) => ['cycles', 'evaluate', JSON.stringify(input)] as const,
+  sweep: (request: unknown) => ['cycles', 'sweep', JSON.stringify(request)] as const,
+};
+
+/**
+ * The engine's answer for an engine input that is not saved (a candidate's draft); `input`
+ * null waits. The engine's refusal comes back as the 422 ApiError naming the field.
+ */
+export function useEvaluateQuery(input: Record<string, unknown> | null) {
+  return useQuery({
+    queryKey: cycleKeys.evaluate(input),
+    queryFn: () => api.post<CycleResultWire>('/api/cycles/evaluate', input),
+    enabled: input !== null,
+    staleTime: STALE.infinity,
+    retry: false,
+    placeholderData: (previous) => previous,
+  });
+}
+
+/** A sweep of one input over a range (the engine's 422 names the field of a bad request). */
+export function useSweepQuery(
+  request: { base: Record<string, unknown>; parameter: string; from: number; to: number; points: number } | null,
+) {
+  return useQuery({
+    queryKey: cycleKeys.sweep(request),
+    queryFn: () => api.post<SweepResultWire>('/api/cycles/sweep', request),
+    enabled: request !== null,
+    staleTime: STALE.infinity,
+    retry: false,
+    placeholderData: (previous) => previous,
+  });
+}
