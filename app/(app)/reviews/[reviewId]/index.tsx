@@ -1,8 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
 
-import { ReviewScreen } from '@/components/screens/reviews/review-screen';
+import { BoardScreen } from '@/components/screens/board/board-screen';
 
-export default function ReviewRoute() {
+export default function BoardRoute() {
   const { reviewId } = useLocalSearchParams<{ reviewId: string }>();
-  return <ReviewScreen reviewId={reviewId} />;
+  return <BoardScreen reviewId={reviewId} />;
 }
