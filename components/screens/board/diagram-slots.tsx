@@ -1,48 +1,27 @@
-import { StyleSheet, View } from 'react-native';
-
-import { Text } from '@/components/ui/text';
-import { useTheme } from '@/components/ui/theme';
-import { radius, space } from '@/components/ui/tokens';
+import { TsDiagram, TsOverlay, type DiagramCycle } from '@/components/diagrams';
 import type { CandidateWire } from '@/server/contracts/board';
 
-/**
- * Where the board draws T-s diagrams: the small one on each card and the overlay of every
- * candidate's loop. The diagrams come from components/diagrams; until they are in, each slot
- * is an empty frame of the size the diagram takes, so the cards keep their layout.
- */
-
-export function CardDiagram({ candidate }: { candidate: CandidateWire; colour: string }) {
-  return <Slot height={150} label={`T-s diagram of ${candidate.name}`} testID={`card-ts-${candidate.id}`} />;
+/** The engine's states and paths of a candidate, when its results carry them. */
+function cycleOf(candidate: CandidateWire): DiagramCycle | null {
+  const r = candidate.results;
+  if (!r || !Array.isArray(r.states) || !Array.isArray(r.paths)) return null;
+  return { states: r.states as DiagramCycle['states'], paths: r.paths as DiagramCycle['paths'] };
 }
 
+/** The small T-s diagram of a card, drawn from the candidate's own results. */
+export function CardDiagram({ candidate, colour }: { candidate: CandidateWire; colour: string }) {
+  const cycle = cycleOf(candidate);
+  if (!cycle) return null;
+  return (
+    <TsDiagram name={candidate.name} cycle={cycle} size="small" colour={colour} testID={`card-ts-${candidate.id}`} />
+  );
+}
+
+/** Every candidate's loop on one T-s diagram, each in its own colour. */
 export function OverlayDiagram({ candidates }: { candidates: Array<{ candidate: CandidateWire; colour: string }> }) {
-  return (
-    <Slot height={360} label={`T-s diagram of ${candidates.length} candidates on one chart`} testID="overlay-ts" />
-  );
+  const drawn = candidates.flatMap(({ candidate, colour }) => {
+    const cycle = cycleOf(candidate);
+    return cycle ? [{ id: candidate.id, name: candidate.name, colour, cycle }] : [];
+  });
+  return <TsOverlay candidates={drawn} size="large" testID="overlay-ts" />;
 }
-
-function Slot({ height, label, testID }: { height: number; label: string; testID: string }) {
-  const t = useTheme();
-  return (
-    <View
-      style={[styles.slot, { height, borderColor: t.hairline, backgroundColor: t.surfaceSunk }]}
-      accessibilityLabel={label}
-      testID={testID}
-    >
-      <Text size="caption" tone="muted" align="center">
-        T-s diagram
-      </Text>
-    </View>
-  );
-}
-
-const styles = StyleSheet.create({
-  slot: {
-    borderWidth: 1,
-    borderStyle: 'dashed',
-    borderRadius: radius.control,
-    alignItems: 'center',
-    justifyContent: 'center',
-    padding: space[1],
-  },
-});
