@@ -10,6 +10,7 @@ import { Card } from '@/components/ui/card';
 import { Choice } from '@/components/ui/field';
 import { unitSystemLabels, type UnitSystem } from '@/components/ui/format';
 import { useMessage } from '@/components/ui/message';
+import { messageFor } from '@/components/ui/message-for';
 import { Screen } from '@/components/ui/screen';
 import { Heading, Text } from '@/components/ui/text';
 import { space } from '@/components/ui/tokens';
@@ -27,7 +28,7 @@ const unitOptions = (['si', 'us'] as const).map((value) => ({ value, label: unit
 /** Account with sign-out, and the display units. */
 export function SettingsScreen() {
   const me = useMeQuery();
-  const { system, setSystem } = useUnitSystem();
+  const { system, setSystem, saveError } = useUnitSystem();
   const qc = useQueryClient();
   const router = useRouter();
   const message = useMessage();
@@ -76,13 +77,14 @@ export function SettingsScreen() {
           value={system}
           onChange={setSystem}
           testID="unit-system"
+          error={saveError ? `Not saved: ${messageFor(saveError)}` : null}
         />
         <Text size="small" tone="soft" testID="unit-summary">
           {unitSummary[system]}
         </Text>
         <Text size="small" tone="muted">
-          Kept on this device for your account. Plant power reads in MW in both systems (in US customary, hp below 1
-          MW).
+          Kept with your account, the same on every device you sign in on. Plant power reads in MW in both systems (in
+          US customary, hp below 1 MW).
         </Text>
       </Card>
     </Screen>
