@@ -13,7 +13,7 @@ import type { Broadcast } from '@/server/services/broadcast';
 import { closeAdapterPool, ensureSocketAttachments, openAdapterPool } from '@/server/services/live';
 
 import { reviewRoom, teamRoom, type Ack, type ClientToServerEvents, type ServerToClientEvents } from './events';
-import { createReviewRoom } from './handlers/review-room';
+import { createReviewRoom, listenerRoom } from './handlers/review-room';
 import { teamRoomHandlers } from './handlers/team-room';
 
 export type SocketData = {
@@ -150,20 +150,25 @@ export function attachRealtime(
     }
   };
   // A Review's room: the same check, and a payload made per listener where it must differ.
+  // Each joined socket is also in its person's room on that board (`listenerRoom`), so a send
+  // addresses the Team's members now by those rooms: one publish per distinct payload, in
+  // every process, with no round trip to ask the others for their sockets first.
   const sendToReview = async (reviewId: string, event: string, payload: unknown) => {
-    const room = reviewRoom(reviewId);
-    const sockets = await io.in(room).fetchSockets();
-    if (sockets.length === 0) return;
     const listeners = await reviewListeners(db, reviewId);
-    for (const socket of sockets) {
-      const role = listeners.get(socket.data.user.id);
-      if (!role) {
-        socket.leave(room);
-        continue;
-      }
-      const body = typeof payload === 'function' ? payload({ userId: socket.data.user.id, role }) : payload;
-      (socket.emit as (event: string, body: unknown) => void)(event, body);
+    const groups = new Map<string, { body: unknown; rooms: string[] }>();
+    for (const [userId, role] of listeners) {
+      const body = typeof payload === 'function' ? payload({ userId, role }) : payload;
+      const key = typeof payload === 'function' ? JSON.stringify(body) : '';
+      const group = groups.get(key) ?? { body, rooms: [] as string[] };
+      group.rooms.push(listenerRoom(reviewId, userId));
+      groups.set(key, group);
     }
+    const emitTo = (rooms: string[], body: unknown) =>
+      (io.to(rooms).emit as (event: string, body: unknown) => boolean)(event, body);
+    for (const { rooms, body } of groups.values()) emitTo(rooms, body);
+    // Sockets of people no longer in the Team are not addressed; take them off the board too.
+    const members = [...groups.values()].flatMap((g) => g.rooms);
+    io.in(reviewRoom(reviewId)).except(members).socketsLeave(reviewRoom(reviewId));
   };
   const broadcast: Broadcast = {
     toTeam(teamId, event, payload) {

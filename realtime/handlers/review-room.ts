@@ -19,6 +19,9 @@ export const gatherGraceMs = 5_000;
 /** fetchSockets waits for every other process; one that does not answer is skipped after this. */
 const otherProcessesMs = 2_000;
 
+/** A person's own room on a review's board: what a send to the board addresses (`review:<id>:<userId>`). */
+export const listenerRoom = (reviewId: string, userId: string) => `${reviewRoom(reviewId)}:${userId}`;
+
 type BoardSocket = Awaited<ReturnType<ReturnType<RealtimeServer['in']>['fetchSockets']>>[number];
 
 /**
@@ -114,7 +117,10 @@ export function createReviewRoom({
     for (const socket of sockets) {
       // As every send to a room: someone no longer in the Team is taken out instead of told.
       if (listeners.has(socket.data.user.id)) members.push(socket.id);
-      else socket.leave(room);
+      else {
+        socket.leave(room);
+        socket.leave(listenerRoom(reviewId, socket.data.user.id));
+      }
     }
     if (members.length > 0) io.to(members).emit('presence:changed', { reviewId, people });
     const gathering = await gatheringOf(db, reviewId);
@@ -151,7 +157,7 @@ export function createReviewRoom({
       'review:join',
       handle(reviewRoomPayload, async ({ reviewId }) => {
         await requireReview(db, userId, reviewId);
-        await socket.join(reviewRoom(reviewId));
+        await socket.join([reviewRoom(reviewId), listenerRoom(reviewId, userId)]);
         socket.data.viewing = { ...socket.data.viewing, [reviewId]: { candidateId: null, at: 0 } };
         afterAck(() => {
           refresh(reviewId);
@@ -172,6 +178,7 @@ export function createReviewRoom({
       handle(reviewRoomPayload, async ({ reviewId }) => {
         if (!socket.rooms.has(reviewRoom(reviewId))) return;
         await socket.leave(reviewRoom(reviewId));
+        await socket.leave(listenerRoom(reviewId, userId));
         const { [reviewId]: _left, ...rest } = socket.data.viewing ?? {};
         socket.data.viewing = rest;
         afterAck(() => refresh(reviewId));
@@ -207,7 +214,7 @@ export function createReviewRoom({
     // The rooms are gone by `disconnect`; note them while they are still there.
     let boards: string[] = [];
     socket.on('disconnecting', () => {
-      boards = [...socket.rooms].filter((r) => r.startsWith('review:')).map((r) => r.slice('review:'.length));
+      boards = [...socket.rooms].flatMap((r) => /^review:([^:]+)$/.exec(r)?.[1] ?? []);
     });
     socket.on('disconnect', () => {
       for (const reviewId of boards) refresh(reviewId);
