@@ -39,7 +39,7 @@ function shapeRound(
   if (!(row.blind && row.status === 'open')) {
     tally = Object.fromEntries(candidateIds.map((id) => [id, 0]));
     for (const b of ballots) {
-      for (const [id, n] of Object.entries(b.votes)) if (id in tally) tally[id] += n;
+      for (const [id, n] of Object.entries(b.votes)) if (Object.hasOwn(tally, id)) tally[id] += n;
     }
   }
   const mine = withMyBallot ? ballots.find((b) => b.userId === listener.userId) : undefined;

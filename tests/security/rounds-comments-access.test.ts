@@ -255,6 +255,7 @@ describe('oversized and malformed bodies', () => {
     [{ votes: null }, 'votes'],
     [{}, 'votes'],
     [{ votes: {}, userId: 'someone' }, 'userId'],
+    [{ votes: { constructor: 1 } }, 'votes.constructor'],
     [{ votes: Object.fromEntries(Array.from({ length: 51 }, (_, i) => [`k${i}`, 0])) }, 'votes'],
   ];
   it('a malformed ballot is 422 naming the field', async () => {
@@ -265,6 +266,18 @@ describe('oversized and malformed bodies', () => {
       );
       expect(res.body.error.field, JSON.stringify(body)).toBe(field);
     }
+  });
+
+  it('a __proto__ key in a ballot is dropped by the parser: no prototype touched, no such key stored', async () => {
+    const res = await t.engineer.agent
+      .put(`${r()}/rounds/${openRoundId}/ballot`)
+      .set('Content-Type', 'application/json')
+      .send(`{"votes": {"__proto__": {"polluted": 1}, "${t.candidates[1]}": 1}}`);
+    expect(res.status).toBe(200);
+    expect(res.body.myBallot).toEqual({ [t.candidates[1]]: 1 });
+    expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+    const stored = await ctx.db.select().from(ballot).where(eq(ballot.roundId, openRoundId));
+    expect(stored.every((b) => !Object.hasOwn(b.votes, '__proto__'))).toBe(true);
   });
 
   const commentBodies: Array<[unknown, string]> = [
