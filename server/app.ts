@@ -9,6 +9,7 @@ import { apiNotFound, errorHandler, requestId } from '@/server/http/handlers';
 import { refuseForeignOrigin } from '@/server/http/origin';
 import { requireSession } from '@/server/http/session';
 import { serveWebBundle } from '@/server/http/web-bundle';
+import { boardRouter } from '@/server/routes/board';
 import { commentsRouter } from '@/server/routes/comments';
 import { cyclesRouter } from '@/server/routes/cycles';
 import { publicRouter } from '@/server/routes/public';
@@ -73,6 +74,7 @@ export function createApp({
   app.use('/api', roundsRouter({ db, broadcast }));
   app.use('/api', commentsRouter({ db, broadcast, mailer, origin }));
   app.use('/api', settingsRouter({ db }));
+  app.use('/api', boardRouter({ db, broadcast }));
   app.use('/api', apiNotFound);
 
   serveWebBundle(app, webDir);

@@ -110,6 +110,18 @@ export type DesignBasis = z.infer<typeof designBasisSchema>;
 
 // ── Candidates ──────────────────────────────────────────────────────────────────────────
 
+/** Okabe–Ito colour-blind-safe series, in order; a candidate keeps its colour for life. */
+export const candidateColours = [
+  '#E69F00',
+  '#56B4E9',
+  '#009E73',
+  '#F0E442',
+  '#0072B2',
+  '#D55E00',
+  '#CC79A7',
+  '#000000',
+] as const;
+
 export const candidatePresets = [
   'simple',
   'regenerative',
@@ -168,17 +180,30 @@ export const candidateParametersPatch = z.strictObject(
 
 export const candidateName = plainText({ label: 'Candidate name', min: 2, max: 80 });
 
-/** Body of POST /api/reviews/:reviewId/candidates: from a preset, or a copy of another candidate. */
-export const createCandidateInput = z.union(
-  [
-    z.strictObject({
-      name: candidateName,
-      preset: z.enum(candidatePresets, { error: `Preset must be one of: ${candidatePresets.join(', ')}.` }),
-    }),
-    z.strictObject({ name: candidateName, copyOf: z.string({ error: 'copyOf must be a candidate id.' }).min(1) }),
-  ],
-  { error: 'Send a name with a preset, or a name with copyOf (the candidate to copy).' },
-);
+/**
+ * Body of POST /api/reviews/:reviewId/candidates: a name with a preset, or a name with copyOf
+ * (another candidate of the same review). One object, so a wrong or unknown field is named.
+ */
+export const createCandidateInput = z
+  .strictObject({
+    name: candidateName,
+    preset: z.enum(candidatePresets, { error: `Preset must be one of: ${candidatePresets.join(', ')}.` }).optional(),
+    copyOf: z
+      .string({ error: 'copyOf must be a candidate id.' })
+      .min(1, { error: 'copyOf must be a candidate id.' })
+      .max(64, { error: 'copyOf must be a candidate id.' })
+      .optional(),
+  })
+  .superRefine((value, ctx) => {
+    if (value.preset === undefined && value.copyOf === undefined)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['preset'],
+        message: 'Send a preset, or copyOf (the candidate to copy).',
+      });
+    if (value.preset !== undefined && value.copyOf !== undefined)
+      ctx.addIssue({ code: 'custom', path: ['copyOf'], message: 'Send a preset or copyOf, not both.' });
+  });
 export type CreateCandidateInput = z.input<typeof createCandidateInput>;
 
 export const updateCandidateInput = z
