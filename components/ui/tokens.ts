@@ -3,6 +3,8 @@
  * about React; atoms and the theme are built from these.
  */
 
+import { candidateColours } from '@/server/contracts/board';
+
 export const palette = {
   paper: '#F6F3EC',
   paperRaised: '#FBF9F4',
@@ -27,16 +29,7 @@ export const palette = {
 } as const;
 
 /** Okabe–Ito colour-blind-safe series, in order; a candidate keeps its colour everywhere. */
-export const candidateSeries = [
-  '#E69F00',
-  '#56B4E9',
-  '#009E73',
-  '#F0E442',
-  '#0072B2',
-  '#D55E00',
-  '#CC79A7',
-  '#000000',
-] as const;
+export const candidateSeries = candidateColours;
 
 /** The 8 px grid: space(1) = 8 px. Half steps exist for hairline-tight spots only. */
 export const space = {

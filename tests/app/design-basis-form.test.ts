@@ -25,7 +25,7 @@ describe('design basis form', () => {
     const us = toBasisForm(basis, 'us');
     expect(us.netPowerKW).toBe('50');
     expect(us.ambient.relativeHumidity).toBe('60');
-    const body = basisFormSchema('us').parse(us) as Record<string, Record<string, number>>;
+    const body = basisFormSchema('us').parse(us) as unknown as Record<string, Record<string, number>>;
     expect(body.ambient!.temperatureK).toBeCloseTo(288.15, 2);
     expect(body.ambient!.elevationM).toBe(0);
     expect(body.ambient!.pressureKPa).toBeUndefined();
