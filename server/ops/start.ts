@@ -1,3 +1,4 @@
+import { existsSync } from 'node:fs';
 import path from 'node:path';
 
 import { createDatabase } from '@/db/client';
@@ -33,8 +34,16 @@ async function main() {
   }
   await db.$client.end();
 
-  ensureWebBuild();
-  const mail = await startMailFake({ smtpPort, webPort: mailWebPort, mailDir: path.join(stateDir(), 'mail') });
+  // A second process (`PORT=8091 npm start` beside a running `npm start`) shares the first
+  // one's mail fake instead of starting another on the same ports (it stops with the first),
+  // and serves the web bundle the first one serves: rebuilding would empty dist/ under it.
+  const running = await runningMailFake(mailWebPort);
+  if (running && existsSync(path.join(webDir, 'index.html'))) {
+    console.log('[web] another process serves dist/: using it as it is (restart both to rebuild)');
+  } else ensureWebBuild();
+  const mail = running
+    ? { smtpPort, webURL: running, stop: async () => {} }
+    : await startMailFake({ smtpPort, webPort: mailWebPort, mailDir: path.join(stateDir(), 'mail') });
   const server = await startServer({
     databaseUrl,
     secret: authSecret(),
@@ -50,7 +59,10 @@ async function main() {
     [
       '',
       `Cyclemoot is up at ${server.url}   (ready in ${((Date.now() - started) / 1000).toFixed(1)} s)`,
-      `Sent e-mail (the local mail fake): ${mail.webURL}`,
+      `Sent e-mail (the local mail fake): ${mail.webURL}${running ? '   (shared with the process already running)' : ''}`,
+      running
+        ? 'Another Cyclemoot process runs on this database: the two share rooms through the Postgres adapter.'
+        : 'A second process on this database: PORT=8091 npm start (it shares rooms, data and mail with this one).',
       `Database: postgres on 127.0.0.1:${cluster.port}, data in ${cluster.dataDir}`,
       '',
       `Demo sign-ins (password for all: ${demoPassword})`,
@@ -75,7 +87,23 @@ async function main() {
   process.on('SIGTERM', stop);
 }
 
-main().catch((error: Error) => {
+/** The mailbox URL when a mail fake already answers on `webPort` (the first process's), else null. */
+async function runningMailFake(webPort: number): Promise<string | null> {
+  const url = `http://127.0.0.1:${webPort}`;
+  try {
+    const res = await fetch(`${url}/api/healthz`, { signal: AbortSignal.timeout(1_000) });
+    return res.ok ? url : null;
+  } catch {
+    return null;
+  }
+}
+
+main().catch((error: Error & { code?: string }) => {
+  if (error.code === 'EADDRINUSE') {
+    console.error(`\nCyclemoot could not start: port ${port} is taken (another Cyclemoot process?).`);
+    console.error('A second process beside a running one takes another port: PORT=8091 npm start');
+    process.exit(1);
+  }
   console.error(`\nCyclemoot could not start: ${error.message}`);
   process.exit(1);
 });
