@@ -257,6 +257,22 @@ describe('review news reaches its own room only', () => {
     await leadHeard;
     await next(lead, 'presence:changed', (p) => p.people.some((x) => x.candidateId === t.candidates[1]));
 
+    // News made through the API: a candidate added and edited on t's board.
+    const outsiderCandidates = [heard(outsider, 'candidate:added'), heard(outsider, 'candidate:recomputed')];
+    const neighbourCandidates = [heard(neighbour, 'candidate:added'), heard(neighbour, 'candidate:recomputed')];
+    const added = next(lead, 'candidate:added');
+    const made = await t.lead.agent
+      .post(`/api/reviews/${t.reviewId}/candidates`)
+      .send({ name: 'Heard only here', preset: 'regenerative' })
+      .expect(201);
+    await added;
+    const recomputed = next(lead, 'candidate:recomputed', (p) => p.candidate.id === made.body.id);
+    await t.lead.agent
+      .patch(`/api/reviews/${t.reviewId}/candidates/${made.body.id}`)
+      .send({ parameters: { compressor: { pressureRatio: 9 } } })
+      .expect(200);
+    await recomputed;
+
     // Later news each of them is owed, on the same connection: everything before it has arrived.
     const otherLead = await onBoard(other.lead.cookie, other.reviewId);
     expect(
@@ -268,6 +284,7 @@ describe('review news reaches its own room only', () => {
     ).toEqual({ ok: true });
     await until(() => outsiderHeard.gathered.length > 0 && neighbourHeard.gathered.length > 0);
 
+    expect([...outsiderCandidates, ...neighbourCandidates].flat()).toEqual([]);
     expect(outsiderHeard.gathered.map((g) => g.reviewId)).toEqual([other.reviewId]);
     expect(neighbourHeard.gathered.map((g) => g.reviewId)).toEqual([secondReview]);
     expect(outsiderHeard.presence.every((p) => p.reviewId === other.reviewId)).toBe(true);

@@ -99,6 +99,27 @@ describe('two server processes on one database', () => {
     expect((await created).review.name).toBe('Made on process one');
   });
 
+  it('a candidate added and edited through the API on one process reaches the board on the other', async () => {
+    const added = next(reviewer, 'candidate:added', (p) => p.candidate.name === 'Across processes');
+    const res = await t.lead.agent
+      .post(`/api/reviews/${t.reviewId}/candidates`)
+      .send({ name: 'Across processes', preset: 'simple' })
+      .expect(201);
+    expect((await added).candidate).toMatchObject({ id: res.body.id, revision: res.body.revision });
+
+    const recomputed = [reviewer, engineer].map((s) =>
+      next(s, 'candidate:recomputed', (p) => p.candidate.id === res.body.id),
+    );
+    const edited = await t.lead.agent
+      .patch(`/api/reviews/${t.reviewId}/candidates/${res.body.id}`)
+      .send({ parameters: { compressor: { pressureRatio: 17 } } })
+      .expect(200);
+    for (const got of await Promise.all(recomputed)) {
+      expect(got.candidate.revision).toBe(edited.body.revision);
+      expect(got.candidate.parameters).toMatchObject({ compressor: { pressureRatio: 17 } });
+    }
+  });
+
   it('when one process stops, the other goes on at once, and its clients come back to the same state', async () => {
     await two.stop();
     stopped = true;
