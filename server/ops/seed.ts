@@ -4,7 +4,9 @@ import type { Database } from '@/db/client';
 import { candidate, review, user } from '@/db/schema';
 import { createAuth } from '@/server/auth/auth';
 import type { TeamRole } from '@/server/contracts/roles';
+import { updateDesignBasis } from '@/server/services/board';
 import { noBroadcast } from '@/server/services/broadcast';
+import { createCandidate, updateCandidate } from '@/server/services/candidates';
 import { postComment } from '@/server/services/comments';
 import { createReview } from '@/server/services/reviews';
 import { castBallot, closeRound, openRound } from '@/server/services/rounds';
@@ -81,6 +83,81 @@ export async function seedDemo(db: Database) {
     await createReview({ db, broadcast: noBroadcast, actorId: ids.lead }, teamId, r);
   }
   return { teamId };
+}
+
+/**
+ * The first demo review's board: the Kestrel Fell design basis and five candidates, one per
+ * preset, each tuned a little by the Engineer, through the services (so every number comes
+ * from the engine and Activity is written as for anyone). Site, fuel and tuning are invented
+ * but plausible for a cold-climate peaking unit. Returns the candidates' ids by preset.
+ */
+export async function seedDemoBoard(db: Database, teamId: string, ids: Record<TeamRole, string>) {
+  const [first] = await db
+    .select({ id: review.id })
+    .from(review)
+    .where(and(eq(review.teamId, teamId), eq(review.name, demoReviews[0].name)))
+    .limit(1);
+  if (!first) throw new Error('The first demo review is missing; seed the reviews first.');
+  const as = (role: TeamRole) => ({ db, broadcast: noBroadcast, actorId: ids[role] });
+
+  // A peaking unit runs few hours: first cost and simplicity weigh more than efficiency.
+  await updateDesignBasis(as('lead'), first.id, {
+    ambient: { temperatureK: 258.15, elevationM: 310, relativeHumidity: 0.8 },
+    fuel: { hydrogenVolumeFraction: 0.2, temperatureK: 278.15 },
+    fluid: 'combustion',
+    netPowerKW: 40_000,
+    generatorEfficiency: 0.984,
+    limits: { maxTurbineInletTemperatureK: 1650, exhaustTemperatureMinK: 700, exhaustTemperatureMaxK: 900 },
+    criteria: [
+      { id: 'efficiency', name: 'Efficiency', weight: 15, measure: 'thermalEfficiency' },
+      { id: 'specific-work', name: 'Specific work', weight: 20, measure: 'netWorkKJPerKg' },
+      { id: 'co2', name: 'CO2', weight: 15, measure: 'co2KgPerMWh' },
+      { id: 'complexity', name: 'Complexity', weight: 20, measure: null },
+      { id: 'maintainability', name: 'Maintainability', weight: 15, measure: null },
+      { id: 'first-cost', name: 'First-cost class', weight: 15, measure: null },
+    ],
+  });
+
+  const plan = [
+    {
+      name: 'Simple, 19:1',
+      preset: 'simple',
+      status: 'shortlisted',
+      parameters: { compressor: { pressureRatio: 19 }, turbine: { inletTemperatureK: 1580 } },
+    },
+    {
+      name: 'Recuperated, 7.5:1',
+      preset: 'regenerative',
+      status: 'shortlisted',
+      parameters: { compressor: { pressureRatio: 7.5 }, regenerator: { effectiveness: 0.87 } },
+    },
+    {
+      name: 'Intercooled, 28:1',
+      preset: 'intercooled',
+      status: 'proposed',
+      parameters: { compressor: { pressureRatio: 28, intercoolerPressureLoss: 0.02 } },
+    },
+    {
+      name: 'Sequential reheat, 32:1',
+      preset: 'reheat',
+      status: 'set-aside',
+      parameters: { compressor: { pressureRatio: 32 }, turbine: { reheatTemperatureK: 1500 } },
+    },
+    {
+      name: 'Intercooled, reheated, recuperated',
+      preset: 'intercooled-reheat-regenerative',
+      status: 'proposed',
+      parameters: { compressor: { pressureRatio: 12 }, turbine: { inletTemperatureK: 1450 } },
+    },
+  ] as const;
+  const made: Record<string, string> = {};
+  for (const c of plan) {
+    const created = await createCandidate(as('engineer'), first.id, { name: c.name, preset: c.preset });
+    await updateCandidate(as('engineer'), first.id, created.id, { parameters: c.parameters, ifRevision: 1 });
+    if (c.status !== 'proposed') await updateCandidate(as('lead'), first.id, created.id, { status: c.status });
+    made[c.preset] = created.id;
+  }
+  return { reviewId: first.id, candidates: made };
 }
 
 /**

@@ -1,7 +1,8 @@
 import { and, eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import supertest from 'supertest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
-import { activity, candidate, designBasis } from '@/db/schema';
+import { activity, candidate, designBasis, user } from '@/db/schema';
 import {
   boardSchema,
   candidateColours,
@@ -10,8 +11,12 @@ import {
   type CandidateWire,
 } from '@/server/contracts/board';
 import { reviewNews } from '@/server/contracts/news';
+import type { TeamRole } from '@/server/contracts/roles';
+import { migrateDatabase } from '@/server/ops/migrate';
+import { ensureCluster, ensureDatabase } from '@/server/ops/postgres';
+import { demoPassword, demoUsers, seedDemo, seedDemoBoard, seedDemoDiscussion } from '@/server/ops/seed';
 
-import { createTeam, createTestApp, signUp, type TestUser } from '../helpers/api';
+import { createTeam, createTestApp, signUp, testOrigin, type TestUser } from '../helpers/api';
 
 const ctx = createTestApp();
 let owner: TestUser;
@@ -554,5 +559,46 @@ describe('payload size', () => {
     console.info(`[size] board with 5 candidates: ${boardBytes} B; one candidate:added event: ${eventBytes} B`);
     expect(boardBytes).toBeLessThan(64 * 1024);
     expect(eventBytes).toBeLessThan(16 * 1024);
+  });
+});
+
+describe('demo board', () => {
+  it('gives the first demo review its basis and five computed candidates, one per preset, that the discussion builds on', async () => {
+    // A database of its own: the demo people's fixed addresses never meet other tests' rows.
+    const url = await ensureDatabase(await ensureCluster(), `cyclemoot_${inject('runId')}_demo_board`, { fresh: true });
+    await migrateDatabase(url);
+    const demo = createTestApp(url);
+    try {
+      const { teamId } = await seedDemo(demo.db);
+      const people = await demo.db.select().from(user);
+      const ids = Object.fromEntries(
+        demoUsers.map((u) => [u.role, people.find((p) => p.email === u.email)!.id]),
+      ) as Record<TeamRole, string>;
+      const { reviewId, candidates } = await seedDemoBoard(demo.db, teamId, ids);
+      await seedDemoDiscussion(demo.db, teamId, ids);
+      const agent = supertest.agent(demo.app).set('Origin', testOrigin);
+      const leadUser = demoUsers.find((u) => u.role === 'lead')!;
+      await agent.post('/api/auth/sign-in/email').send({ email: leadUser.email, password: demoPassword }).expect(200);
+      const b = boardSchema.parse((await agent.get(`/api/reviews/${reviewId}/board`).expect(200)).body);
+      expect(b.designBasis).toMatchObject({ ambient: { temperatureK: 258.15, elevationM: 310 }, netPowerKW: 40_000 });
+      expect(b.candidates.map((c) => c.preset)).toEqual([...candidatePresets]);
+      expect(Object.values(candidates).sort()).toEqual(b.candidates.map((c) => c.id).sort());
+      for (const c of b.candidates) {
+        expect(c.error, c.name).toBeNull();
+        const direct = await agent.post('/api/cycles/evaluate').send(c.input).expect(200);
+        expect(c.results).toEqual(direct.body);
+      }
+      expect(b.candidates.map((c) => c.status)).toEqual([
+        'shortlisted',
+        'shortlisted',
+        'proposed',
+        'set-aside',
+        'proposed',
+      ]);
+      expect(b.round).toMatchObject({ status: 'closed', voters: 3 });
+      expect(Object.values(b.commentCounts).reduce((a, n) => a + n, 0)).toBe(5);
+    } finally {
+      await demo.close();
+    }
   });
 });
