@@ -82,6 +82,9 @@ export async function seedDemo(db: Database) {
   for (const r of demoReviews) {
     await createReview({ db, broadcast: noBroadcast, actorId: ids.lead }, teamId, r);
   }
+  // The first review opens onto a working board: its basis and candidates, then a closed round and comments.
+  await seedDemoBoard(db, teamId, ids);
+  await seedDemoDiscussion(db, teamId, ids);
   return { teamId };
 }
 

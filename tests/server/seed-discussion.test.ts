@@ -5,7 +5,7 @@ import { candidate, comment, review, user } from '@/db/schema';
 import type { TeamRole } from '@/server/contracts/roles';
 import { migrateDatabase } from '@/server/ops/migrate';
 import { ensureCluster, ensureDatabase } from '@/server/ops/postgres';
-import { demoReviews, demoUsers, seedDemo, seedDemoDiscussion } from '@/server/ops/seed';
+import { demoReviews, demoUsers, seedDemo } from '@/server/ops/seed';
 import { commentCounts } from '@/server/services/comments';
 import { currentRound } from '@/server/services/rounds';
 
@@ -27,27 +27,18 @@ describe('the demo discussion', () => {
   it('gives the first demo review one closed round with votes and a few comments, with a reply and mentions', async () => {
     const { teamId } = await seedDemo(ctx.db);
     const [first] = await ctx.db.select().from(review).where(eq(review.name, demoReviews[0].name));
-    // The board's candidates, as the demo's own candidate step makes them (one per preset).
+    // The board's candidates, one per preset, as seedDemo's board step made them.
     const made = await ctx.db
-      .insert(candidate)
-      .values(
-        presets.map((preset, i) => ({
-          reviewId: first.id,
-          name: `Demo ${preset}`,
-          preset,
-          colourIndex: i,
-          position: i,
-          parameters: {},
-          input: {},
-        })),
-      )
-      .returning({ id: candidate.id, preset: candidate.preset });
+      .select({ id: candidate.id, preset: candidate.preset })
+      .from(candidate)
+      .where(eq(candidate.reviewId, first.id));
+    expect(made.map((c) => c.preset).sort()).toEqual([...presets].sort());
     const people = await ctx.db.select().from(user);
     const ids = Object.fromEntries(
       demoUsers.map((u) => [u.role, people.find((p) => p.email === u.email)!.id]),
     ) as Record<TeamRole, string>;
 
-    await seedDemoDiscussion(ctx.db, teamId, ids);
+    void teamId;
 
     const round = await currentRound(ctx.db, first.id, { userId: ids.lead, role: 'lead' });
     const by = (preset: string) => made.find((c) => c.preset === preset)!.id;
