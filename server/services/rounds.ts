@@ -275,7 +275,9 @@ export async function closeRound(
     }
     const [row] = await tx
       .update(round)
-      .set({ status: 'closed', closedAt: sql`now()` })
+      // The moment it closed (after the lock), not when this transaction began: a ballot that
+      // took its turn first is then always stamped earlier.
+      .set({ status: 'closed', closedAt: sql`clock_timestamp()` })
       .where(eq(round.id, roundId))
       .returning();
     const target = await reviewOf(tx, reviewId);

@@ -25,7 +25,7 @@ const presets = ['simple', 'regenerative', 'intercooled', 'reheat', 'intercooled
 
 describe('the demo discussion', () => {
   it('gives the first demo review one closed round with votes and a few comments, with a reply and mentions', async () => {
-    const { teamId } = await seedDemo(ctx.db);
+    await seedDemo(ctx.db);
     const [first] = await ctx.db.select().from(review).where(eq(review.name, demoReviews[0].name));
     // The board's candidates, one per preset, as seedDemo's board step made them.
     const made = await ctx.db
@@ -37,8 +37,6 @@ describe('the demo discussion', () => {
     const ids = Object.fromEntries(
       demoUsers.map((u) => [u.role, people.find((p) => p.email === u.email)!.id]),
     ) as Record<TeamRole, string>;
-
-    void teamId;
 
     const round = await currentRound(ctx.db, first.id, { userId: ids.lead, role: 'lead' });
     const by = (preset: string) => made.find((c) => c.preset === preset)!.id;
