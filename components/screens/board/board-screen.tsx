@@ -15,7 +15,7 @@ import { PressableLink } from '@/components/ui/pressable-link';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Heading, Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
-import { candidateSeries, space } from '@/components/ui/tokens';
+import { space } from '@/components/ui/tokens';
 import type { Board } from '@/server/contracts/board';
 import { roleAllows } from '@/server/contracts/roles';
 
@@ -25,7 +25,7 @@ import { CandidateCard, candidateHref } from './candidate-card';
 import { CardPager } from './card-pager';
 import { CommentThread } from './comment-thread';
 import { OverlayDiagram } from './diagram-slots';
-import { bestValues, candidateColour } from './figures';
+import { bestValues } from './figures';
 import { PresenceList } from './presence-list';
 import { ReviewDetails } from './review-details';
 import { RoundPanel } from './round-panel';
@@ -146,15 +146,8 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
     if (y !== undefined) main.current?.scrollTo({ y: Math.max(0, y - space[2]), animated: true });
   }, [wide, followedId]);
 
-  const colours = useMemo(
-    () => Object.fromEntries(candidates.map((c, i) => [c.id, candidateColour(c, candidateSeries, i)])),
-    [candidates],
-  );
   const best = useMemo(() => bestValues(candidates), [candidates]);
-  const named = useMemo(
-    () => candidates.map((c) => ({ id: c.id, name: c.name, colour: colours[c.id]! })),
-    [candidates, colours],
-  );
+  const named = useMemo(() => candidates.map((c) => ({ id: c.id, name: c.name, colour: c.colour })), [candidates]);
 
   const back = (
     <PressableLink href="/" accessibilityLabel="Back to reviews" testID="back-to-reviews" style={styles.back}>
@@ -192,7 +185,7 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
       <CandidateCard
         reviewId={reviewId}
         candidate={c}
-        colour={colours[c.id]!}
+        colour={c.colour}
         best={best}
         round={data.round}
         commentCount={data.commentCounts[c.id] ?? 0}
@@ -298,15 +291,7 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
 
   const overlay = (
     <View style={styles.gap} testID="board-overlay">
-      <OverlayDiagram candidates={candidates.map((c) => ({ candidate: c, colour: colours[c.id]! }))} />
-      <View style={styles.legend}>
-        {named.map((c) => (
-          <View key={c.id} style={styles.legendItem}>
-            <View style={[styles.swatch, { backgroundColor: c.colour }]} />
-            <Text size="small">{c.name}</Text>
-          </View>
-        ))}
-      </View>
+      <OverlayDiagram candidates={candidates} />
     </View>
   );
 
@@ -535,9 +520,6 @@ const styles = StyleSheet.create({
   section: { gap: space[1] + space.half, borderBottomWidth: 1, paddingBottom: space[2] },
   phonePanel: { borderTopWidth: 1, paddingTop: space[2], gap: space[2] },
   threadHead: { flexDirection: 'row', alignItems: 'center', gap: space[1], flexWrap: 'wrap' },
-  legend: { flexDirection: 'row', flexWrap: 'wrap', gap: space[2] },
-  legendItem: { flexDirection: 'row', alignItems: 'center', gap: space.half },
-  swatch: { width: 12, height: 12, borderRadius: 6 },
   banner: {
     flexDirection: 'row',
     alignItems: 'center',

@@ -18,10 +18,10 @@ export function CardDiagram({ candidate, colour }: { candidate: CandidateWire; c
 }
 
 /** Every candidate's loop on one T-s diagram, each in its own colour. */
-export function OverlayDiagram({ candidates }: { candidates: Array<{ candidate: CandidateWire; colour: string }> }) {
-  const drawn = candidates.flatMap(({ candidate, colour }) => {
+export function OverlayDiagram({ candidates }: { candidates: CandidateWire[] }) {
+  const drawn = candidates.flatMap((candidate) => {
     const cycle = cycleOf(candidate);
-    return cycle ? [{ id: candidate.id, name: candidate.name, colour, cycle }] : [];
+    return cycle ? [{ id: candidate.id, name: candidate.name, colour: candidate.colour, cycle }] : [];
   });
   return <TsOverlay candidates={drawn} size="large" testID="overlay-ts" />;
 }

@@ -82,13 +82,3 @@ export function warningsOf(candidate: CandidateWire): Warning[] {
     return typeof message === 'string' ? [{ message, field: typeof field === 'string' ? field : undefined }] : [];
   });
 }
-
-/**
- * The candidate's identity colour from the wire `colour`: a colour of the series as
- * `#rrggbb`, or its place in the series as a number; else its place on the board.
- */
-export function candidateColour(candidate: CandidateWire, series: readonly string[], index: number): string {
-  if (/^#[0-9a-f]{6}$/i.test(candidate.colour)) return candidate.colour;
-  const n = /^\d+$/.test(candidate.colour) ? Number(candidate.colour) : index;
-  return series[n % series.length]!;
-}
