@@ -4,6 +4,10 @@ import { Pool } from 'pg';
 import * as schema from '@/db/schema';
 
 export type Database = NodePgDatabase<typeof schema> & { $client: Pool };
+/** The handle a `db.transaction` callback receives. */
+export type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
+/** Either: a read that may run inside or outside a transaction. */
+export type Reader = Database | Tx;
 
 /**
  * One pool per process; the server and the tests each create theirs from a URL.

@@ -37,3 +37,17 @@ export function isDatabaseUnavailable(error: unknown): boolean {
   }
   return false;
 }
+
+/**
+ * The unique constraint `error` (or an error it wraps) broke, if it is a unique violation
+ * (SQLSTATE 23505): how a service tells "that name is taken" from any other failure.
+ */
+export function violatedUnique(error: unknown): string | undefined {
+  const seen = new Set<unknown>();
+  for (let e: unknown = error; e && typeof e === 'object' && !seen.has(e); e = (e as { cause?: unknown }).cause) {
+    seen.add(e);
+    const { code, constraint } = e as { code?: unknown; constraint?: unknown };
+    if (code === '23505') return typeof constraint === 'string' ? constraint : '';
+  }
+  return undefined;
+}

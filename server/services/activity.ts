@@ -1,10 +1,8 @@
 import { desc, eq } from 'drizzle-orm';
 
-import type { Database } from '@/db/client';
+import type { Database, Tx } from '@/db/client';
 import { activity, user } from '@/db/schema';
 import type { Activity, ActivityKind } from '@/server/contracts/team';
-
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
 
 export type ActivityEntry = {
   teamId: string;

@@ -3,8 +3,8 @@ import { isDeepStrictEqual } from 'node:util';
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
 
-import type { Database } from '@/db/client';
-import { candidate, review, user } from '@/db/schema';
+import type { Database, Reader, Tx } from '@/db/client';
+import { candidate, user } from '@/db/schema';
 import {
   candidateColours,
   candidateParametersSchema,
@@ -16,16 +16,16 @@ import {
   type CandidateWire,
 } from '@/server/contracts/board';
 import type { ActivityKind } from '@/server/contracts/team';
+import { violatedUnique } from '@/server/http/database-errors';
 import { ApiError, parse } from '@/server/http/errors';
 
 import { recordActivity } from './activity';
 import type { Broadcast } from './broadcast';
-import { computeCandidate, coreOf, lockBasis, type BasisCore, type Reader } from './design-basis';
+import { computeCandidate, coreOf, lockBasis, type BasisCore } from './design-basis';
 import { parametersOf } from './presets';
+import { reviewOf } from './reviews';
 
 export type CandidateContext = { db: Database; broadcast: Broadcast; actorId: string };
-
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
 
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -78,22 +78,7 @@ async function getCandidate(db: Reader, reviewId: string, candidateId: string): 
 
 const candidateNotFound = () => ApiError.notFound('The Candidate');
 
-async function reviewOf(db: Reader, reviewId: string) {
-  const [row] = await db
-    .select({ teamId: review.teamId, name: review.name })
-    .from(review)
-    .where(eq(review.id, reviewId))
-    .limit(1);
-  if (!row) throw ApiError.notFound('The Review');
-  return row;
-}
-
-function isNameTaken(error: unknown) {
-  const cause =
-    (error as { cause?: { code?: string; constraint?: string } }).cause ??
-    (error as { code?: string; constraint?: string });
-  return cause?.code === '23505' && cause.constraint === 'candidate_review_name_key';
-}
+const isNameTaken = (error: unknown) => violatedUnique(error) === 'candidate_review_name_key';
 
 const nameTaken = (name: string) =>
   new ApiError(409, 'conflict', `A candidate named "${name}" already exists in this Review.`, {

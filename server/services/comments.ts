@@ -1,15 +1,13 @@
 import { and, asc, count, eq, inArray } from 'drizzle-orm';
 
-import type { Database } from '@/db/client';
+import type { Database, Reader } from '@/db/client';
 import { candidate, comment, review, teamMember, user } from '@/db/schema';
 import type { Comment } from '@/server/contracts/board';
 import { ApiError } from '@/server/http/errors';
 
 import { recordActivity } from './activity';
 import type { Broadcast } from './broadcast';
-
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
-type Reader = Database | Tx;
+import { reviewOf } from './reviews';
 
 export type CommentContext = { db: Database; broadcast: Broadcast; actorId: string };
 
@@ -147,12 +145,7 @@ export async function postComment(
   input: { body: string; candidateId?: string | null; parentId?: string | null; clientId: string },
 ): Promise<PostedComment> {
   const outcome = await db.transaction(async (tx) => {
-    const [target] = await tx
-      .select({ teamId: review.teamId, name: review.name })
-      .from(review)
-      .where(eq(review.id, reviewId))
-      .limit(1);
-    if (!target) throw ApiError.notFound('The Review');
+    const target = await reviewOf(tx, reviewId);
 
     let candidateId = input.candidateId ?? null;
     if (input.parentId) {

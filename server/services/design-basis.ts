@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import type { z } from 'zod';
 
-import type { Database } from '@/db/client';
+import type { Reader, Tx } from '@/db/client';
 import { designBasis } from '@/db/schema';
 import type { CandidateParameters, Criterion, DesignBasis, designBasisInput } from '@/server/contracts/board';
 import { evaluateRequestSchema } from '@/server/contracts/cycle';
@@ -9,9 +9,6 @@ import { EngineInputError } from '@/server/engine';
 
 import { evaluate } from './cycles';
 import { defaultCriteria, defaultDesignBasis } from './presets';
-
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
-export type Reader = Database | Tx;
 
 /** The basis without its criteria: what the engine input takes from it. */
 export type BasisCore = Omit<z.output<typeof designBasisInput>, 'criteria'>;

@@ -1,9 +1,10 @@
 import { and, asc, desc, eq, sql } from 'drizzle-orm';
 
-import type { Database } from '@/db/client';
+import type { Database, Reader } from '@/db/client';
 import { review, user } from '@/db/schema';
 import type { Review, ReviewStatus } from '@/server/contracts/review';
 import type { ActivityKind } from '@/server/contracts/team';
+import { violatedUnique } from '@/server/http/database-errors';
 import { ApiError } from '@/server/http/errors';
 
 import { recordActivity } from './activity';
@@ -55,11 +56,17 @@ export async function listReviews(db: Database, teamId: string, status: ReviewSt
   return rows.map(toReview);
 }
 
-function isNameTaken(error: unknown) {
-  const cause =
-    (error as { cause?: { code?: string; constraint?: string } }).cause ??
-    (error as { code?: string; constraint?: string });
-  return cause?.code === '23505' && cause.constraint === 'review_team_name_key';
+const isNameTaken = (error: unknown) => violatedUnique(error) === 'review_team_name_key';
+
+/** The Team and name of a Review (for Activity lines), or 404. */
+export async function reviewOf(db: Reader, reviewId: string): Promise<{ teamId: string; name: string }> {
+  const [row] = await db
+    .select({ teamId: review.teamId, name: review.name })
+    .from(review)
+    .where(eq(review.id, reviewId))
+    .limit(1);
+  if (!row) throw ApiError.notFound('The Review');
+  return row;
 }
 
 const nameTaken = (name: string) =>

@@ -1,17 +1,16 @@
 import { and, asc, desc, eq, inArray, max, sql } from 'drizzle-orm';
 
-import type { Database } from '@/db/client';
-import { ballot, candidate, review, round, user } from '@/db/schema';
+import type { Database, Reader, Tx } from '@/db/client';
+import { ballot, candidate, round, user } from '@/db/schema';
 import type { Round } from '@/server/contracts/board';
 import type { Listener } from '@/server/contracts/news';
 import { roleAllows } from '@/server/contracts/roles';
+import { violatedUnique } from '@/server/http/database-errors';
 import { ApiError } from '@/server/http/errors';
 
 import { recordActivity } from './activity';
 import type { Broadcast } from './broadcast';
-
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
-type Reader = Database | Tx;
+import { reviewOf } from './reviews';
 
 export type RoundContext = { db: Database; broadcast: Broadcast; actorId: string };
 
@@ -129,27 +128,12 @@ export async function currentRound(db: Database, reviewId: string, listener: Lis
   return view(await loadRound(db, row), listener);
 }
 
-async function reviewOf(db: Reader, reviewId: string) {
-  const [row] = await db
-    .select({ teamId: review.teamId, name: review.name })
-    .from(review)
-    .where(eq(review.id, reviewId))
-    .limit(1);
-  if (!row) throw ApiError.notFound('The Review');
-  return row;
-}
-
 const roundAlreadyOpen = () =>
   new ApiError(409, 'round_open', 'A preference round is already open in this Review; close it first.');
 
 function isOpenRoundClash(error: unknown) {
-  const cause =
-    (error as { cause?: { code?: string; constraint?: string } }).cause ??
-    (error as { code?: string; constraint?: string });
-  return (
-    cause?.code === '23505' &&
-    (cause.constraint === 'round_one_open_key' || cause.constraint === 'round_review_number_key')
-  );
+  const constraint = violatedUnique(error);
+  return constraint === 'round_one_open_key' || constraint === 'round_review_number_key';
 }
 
 /** Opens round number (previous + 1); one open round per review, by the database's own index. */
