@@ -5,6 +5,7 @@ import { gatherRoom, reportViewing, useBoardQuery, usePresence, useReviewLiveUpd
 import { useMeQuery } from '@/components/data/me';
 import { useTeamLiveUpdates } from '@/components/data/team-live-updates';
 import { useCurrentTeam } from '@/components/state/current-team';
+import { BackLink } from '@/components/ui/back-link';
 import { Button } from '@/components/ui/button';
 import { CautionLine } from '@/components/ui/caution-line';
 import { useDocumentTitle } from '@/components/ui/document-title';
@@ -149,13 +150,7 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
   const best = useMemo(() => bestValues(candidates), [candidates]);
   const named = useMemo(() => candidates.map((c) => ({ id: c.id, name: c.name, colour: c.colour })), [candidates]);
 
-  const back = (
-    <PressableLink href="/" accessibilityLabel="Back to reviews" testID="back-to-reviews" style={styles.back}>
-      <Text size="small" tone="soft">
-        ← Reviews
-      </Text>
-    </PressableLink>
-  );
+  const back = <BackLink href="/" to="Reviews" label="Back to reviews" testID="back-to-reviews" />;
 
   if (board.error) {
     return (
@@ -510,7 +505,6 @@ const styles = StyleSheet.create({
   wideRow: { flexDirection: 'row' },
   header: { gap: space[2] },
   headRow: { flexDirection: 'row', alignItems: 'center' },
-  back: { minHeight: 44, justifyContent: 'center', paddingRight: space[1], alignSelf: 'flex-start' },
   titleRow: { flexDirection: 'row', alignItems: 'flex-end', gap: space[2], flexWrap: 'wrap' },
   titleText: { flex: 1, minWidth: 200 },
   actions: { flexDirection: 'row', gap: space[1], flexWrap: 'wrap' },

@@ -10,13 +10,13 @@ import {
 } from '@/components/data/board';
 import { TsDiagram } from '@/components/diagrams';
 import { CommentThread } from '@/components/screens/board/comment-thread';
+import { BackLink } from '@/components/ui/back-link';
 import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
 import { CautionLine } from '@/components/ui/caution-line';
 import { Choice } from '@/components/ui/field';
 import { formatAgo } from '@/components/ui/format';
 import { useMessage } from '@/components/ui/message';
-import { PressableLink } from '@/components/ui/pressable-link';
 import { Screen } from '@/components/ui/screen';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { Heading, Text } from '@/components/ui/text';
@@ -45,16 +45,12 @@ export function CandidateScreen({ reviewId, candidateId }: { reviewId: string; c
   }, [reviewId, candidateId]);
 
   const back = (
-    <PressableLink
+    <BackLink
       href={`/reviews/${encodeURIComponent(reviewId)}`}
-      accessibilityLabel="Back to the board"
+      to="Board"
+      label="Back to the board"
       testID="back-to-board"
-      style={styles.back}
-    >
-      <Text size="small" tone="soft">
-        ← Board
-      </Text>
-    </PressableLink>
+    />
   );
 
   if (board.error)
@@ -202,7 +198,6 @@ function CandidateBody({
 }
 
 const styles = StyleSheet.create({
-  back: { minHeight: 44, justifyContent: 'center', alignSelf: 'flex-start', paddingRight: space[1] },
   head: { borderLeftWidth: 6, gap: space[1] },
   row: { flexDirection: 'row', alignItems: 'center', gap: space[1], flexWrap: 'wrap' },
   columns: { flexDirection: 'row', flexWrap: 'wrap', gap: space[2] },

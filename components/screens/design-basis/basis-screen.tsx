@@ -6,13 +6,13 @@ import { StyleSheet, View } from 'react-native';
 import { isApiError } from '@/components/data/api-error';
 import { useBoardQuery, usePutDesignBasisMutation, useReviewLiveUpdates } from '@/components/data/board';
 import { unitOf, type QuantityKind } from '@/components/screens/candidate/quantities';
+import { BackLink } from '@/components/ui/back-link';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { CautionLine } from '@/components/ui/caution-line';
 import { Choice, Field, FormError } from '@/components/ui/field';
 import { formatNumber, type UnitSystem } from '@/components/ui/format';
 import { messageFor } from '@/components/ui/message-for';
-import { PressableLink } from '@/components/ui/pressable-link';
 import { Screen } from '@/components/ui/screen';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { Heading, Text } from '@/components/ui/text';
@@ -28,16 +28,12 @@ export function BasisScreen({ reviewId }: { reviewId: string }) {
   const board = useBoardQuery(reviewId);
   useReviewLiveUpdates(reviewId);
   const back = (
-    <PressableLink
+    <BackLink
       href={`/reviews/${encodeURIComponent(reviewId)}`}
-      accessibilityLabel="Back to the board"
+      to="Board"
+      label="Back to the board"
       testID="back-to-board"
-      style={styles.back}
-    >
-      <Text size="small" tone="soft">
-        ← Board
-      </Text>
-    </PressableLink>
+    />
   );
   if (board.error)
     return (
@@ -286,7 +282,6 @@ function ratingHint(system: UnitSystem) {
 }
 
 const styles = StyleSheet.create({
-  back: { minHeight: 44, justifyContent: 'center', alignSelf: 'flex-start', paddingRight: space[1] },
   gap1: { gap: space[1] },
   gap2: { gap: space[2] },
   criterion: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-end', gap: space[1] },
