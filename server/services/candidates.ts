@@ -187,7 +187,7 @@ export class CandidateConflict extends ApiError {
       409,
       'conflict',
       `This candidate was changed${by} since you opened it (now revision ${candidate.revision}). ` +
-        'Review the current values and apply your change again.',
+        'Look at the current values and apply your change again.',
       { field: 'ifRevision' },
     );
     this.name = 'CandidateConflict';

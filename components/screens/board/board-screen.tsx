@@ -1,3 +1,4 @@
+import { useRouter } from 'expo-router';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
@@ -48,6 +49,7 @@ async function sendGather(reviewId: string, candidateId: string | null) {
  * Activity). Wide: a grid of cards and a right-hand panel with the same three.
  */
 export function BoardScreen({ reviewId }: { reviewId: string }) {
+  const router = useRouter();
   const t = useTheme();
   const wide = useIsWide();
   const message = useMessage();
@@ -212,6 +214,13 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
           <Heading level={1}>{data.review.name}</Heading>
         </View>
         <View style={styles.actions}>
+          <Button
+            label="Design basis"
+            variant="quiet"
+            small
+            onPress={() => router.push(`/reviews/${encodeURIComponent(reviewId)}/basis`)}
+            testID="design-basis-open"
+          />
           <Button
             label="Review details"
             variant={details ? 'secondary' : 'quiet'}

@@ -133,7 +133,7 @@ export function CandidateCard({
                   accessibilityLabel={`${f.label}: ${value === null ? 'not available' : `${shown.value} ${shown.unit}`}${top ? `, ${bestRule(f)}` : ''}`}
                   testID={`figure-${f.key}-${id}`}
                 >
-                  <Text size="caption" tone="muted" numberOfLines={1}>
+                  <Text size="caption" tone="muted" numberOfLines={2}>
                     {f.label}
                   </Text>
                   <View style={styles.valueRow}>
