@@ -3,6 +3,7 @@ export * from './review';
 export * from './activity';
 export * from './board';
 export * from './settings';
+export * from './decision';
 
 /**
  * The product's words for better-auth's generated tables: a Team is an `organization`, a

@@ -1,4 +1,4 @@
-import { pgTable, text, timestamp } from 'drizzle-orm/pg-core';
+import { boolean, pgTable, text, timestamp } from 'drizzle-orm/pg-core';
 
 import { user } from './auth';
 
@@ -10,5 +10,8 @@ export const userSetting = pgTable('user_setting', {
   unitSystem: text('unit_system', { enum: ['si', 'us'] })
     .notNull()
     .default('si'),
+  /** A daily e-mail of the comments posted in the person's reviews since the last one. */
+  dailyDigest: boolean('daily_digest').notNull().default(false),
+  digestSentAt: timestamp('digest_sent_at', { withTimezone: true }),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 });
