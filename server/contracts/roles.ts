@@ -13,8 +13,11 @@ export const statements = {
   round: ['open', 'close'],
   comment: ['create'],
   vote: ['cast'],
-  decision: ['sign'],
+  decision: ['edit', 'sign', 'reopen'],
   liveSession: ['gather'],
+  score: ['cast'],
+  file: ['upload', 'delete'],
+  robustness: ['run', 'cancel'],
 } as const;
 
 export const accessControl = createAccessControl(statements);
@@ -30,8 +33,12 @@ export const roleLabels: Record<TeamRole, string> = {
   observer: 'Observer',
 };
 
-/** Engineers, Reviewers and the Lead comment and vote; the Owner runs the Team and comments. */
-const discuss = { comment: ['create'], vote: ['cast'] } as const;
+/**
+ * Engineers, Reviewers and the Lead comment, vote, score and attach files; the Owner runs the
+ * Team, comments and attaches files. Deleting any file is the Lead's and Owner's (the person who
+ * uploaded a file may delete their own: the files service checks that).
+ */
+const discuss = { comment: ['create'], vote: ['cast'], score: ['cast'] } as const;
 
 export const roles = {
   owner: accessControl.newRole({
@@ -42,24 +49,30 @@ export const roles = {
     candidate: ['create', 'update', 'delete'],
     basis: ['update'],
     round: ['open', 'close'],
-    decision: ['sign'],
+    decision: ['edit', 'sign', 'reopen'],
     liveSession: ['gather'],
     comment: ['create'],
+    file: ['upload', 'delete'],
+    robustness: ['run', 'cancel'],
   }),
   lead: accessControl.newRole({
     review: ['create', 'update', 'archive'],
     candidate: ['create', 'update', 'delete'],
     basis: ['update'],
     round: ['open', 'close'],
-    decision: ['sign'],
+    decision: ['edit', 'sign', 'reopen'],
     liveSession: ['gather'],
+    file: ['upload', 'delete'],
+    robustness: ['run', 'cancel'],
     ...discuss,
   }),
   engineer: accessControl.newRole({
     candidate: ['create', 'update', 'delete'],
+    file: ['upload'],
+    robustness: ['run'],
     ...discuss,
   }),
-  reviewer: accessControl.newRole({ ...discuss }),
+  reviewer: accessControl.newRole({ ...discuss, file: ['upload'] }),
   observer: accessControl.newRole({}),
 } satisfies Record<TeamRole, unknown>;
 
