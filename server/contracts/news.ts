@@ -1,6 +1,7 @@
 import { z } from 'zod';
 
 import { candidateSchema, commentSchema, designBasisSchema, presenceSchema, roundSchema } from './board';
+import { scoreChangedSchema } from './matrix';
 import { reviewSchema } from './review';
 
 /**
@@ -35,6 +36,7 @@ export const reviewNews = {
     candidateId: z.string().nullable(),
     by: z.object({ id: z.string(), name: z.string() }),
   }),
+  'score:changed': scoreChangedSchema,
 };
 
 export type ReviewNews = { [E in keyof typeof reviewNews]: z.infer<(typeof reviewNews)[E]> };

@@ -99,6 +99,8 @@ export const activityKinds = [
   'round:opened',
   'round:closed',
   'comment:posted',
+  // Scores (detail carries the review's name and how many scores changed).
+  'score:changed',
 ] as const;
 export type ActivityKind = (typeof activityKinds)[number];
 
