@@ -17,6 +17,33 @@ export type {
   StatePoint,
   WorkingFluid,
 } from './cycles/types';
+export {
+  ambientPressureKPa,
+  fixMachine,
+  humidAirDensity,
+  offDesignPoint,
+  type Ambient,
+  type FixedMachine,
+  type OffDesignPoint,
+} from './off-design/fixed-machine';
+export {
+  annualFigures,
+  GRID_STEP_K,
+  GRID_STEP_RH,
+  profileDensities,
+  profileSummary,
+  RATING_FROM_K,
+  RATING_STEP_K,
+  RATING_TO_K,
+  ratingCurve,
+  ratingTemperaturesK,
+  siteYear,
+  type AmbientProfile,
+  type AnnualFigures,
+  type RatingPoint,
+  type SiteYearOptions,
+  type SiteYearResult,
+} from './off-design/site-year';
 export { MAX_SWEEP_POINTS, SWEEP_PARAMETERS } from './cycles/sweep';
 export type { SweepFigures, SweepInput, SweepOptimum, SweepParameter, SweepPoint, SweepResult } from './cycles/sweep';
 export {
