@@ -12,12 +12,14 @@ import { serveWebBundle } from '@/server/http/web-bundle';
 import { boardRouter } from '@/server/routes/board';
 import { commentsRouter } from '@/server/routes/comments';
 import { cyclesRouter } from '@/server/routes/cycles';
+import { filesRouter } from '@/server/routes/files';
 import { publicRouter } from '@/server/routes/public';
 import { reviewsRouter } from '@/server/routes/reviews';
 import { roundsRouter } from '@/server/routes/rounds';
 import { settingsRouter } from '@/server/routes/settings';
 import { teamsRouter } from '@/server/routes/teams';
 import type { Broadcast } from '@/server/services/broadcast';
+import { postgresStorage, type FileStorage } from '@/server/storage';
 
 export type AppDeps = {
   db: Database;
@@ -36,6 +38,8 @@ export type AppDeps = {
    * test that reads no mail) mentions are still resolved and stored, and nobody is mailed.
    */
   mailer?: Mailer;
+  /** Where uploaded files' bytes go (server/storage); the Postgres driver when absent. */
+  storage?: FileStorage;
   /** The exported web bundle (dist/); the API alone when absent. */
   webDir?: string;
 };
@@ -53,6 +57,7 @@ export function createApp({
   trustProxy = false,
   authLimits,
   mailer = noMail,
+  storage = postgresStorage(db),
   webDir,
 }: AppDeps): Express {
   const app = express();
@@ -75,6 +80,7 @@ export function createApp({
   app.use('/api', commentsRouter({ db, broadcast, mailer, origin }));
   app.use('/api', settingsRouter({ db }));
   app.use('/api', boardRouter({ db, broadcast }));
+  app.use('/api', filesRouter({ db, broadcast, storage }));
   app.use('/api', apiNotFound);
 
   serveWebBundle(app, webDir);

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 
 import { candidateSchema, commentSchema, designBasisSchema, presenceSchema, roundSchema } from './board';
+import { storedFileSchema } from './files';
 import { scoreChangedSchema } from './matrix';
 import { reviewSchema } from './review';
 
@@ -36,6 +37,8 @@ export const reviewNews = {
     candidateId: z.string().nullable(),
     by: z.object({ id: z.string(), name: z.string() }),
   }),
+  'file:added': z.object({ file: storedFileSchema }),
+  'file:removed': z.object({ reviewId: z.string(), fileId: z.string(), candidateId: z.string().nullable() }),
   'score:changed': scoreChangedSchema,
 };
 

@@ -101,6 +101,9 @@ export const activityKinds = [
   'comment:posted',
   // Scores (detail carries the review's name and how many scores changed).
   'score:changed',
+  // Files (detail carries the file's name).
+  'file:added',
+  'file:removed',
 ] as const;
 export type ActivityKind = (typeof activityKinds)[number];
 
