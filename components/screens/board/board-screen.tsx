@@ -13,12 +13,10 @@ import { useDocumentTitle } from '@/components/ui/document-title';
 import { Choice } from '@/components/ui/field';
 import { useIsWide } from '@/components/ui/layout';
 import { useMessage } from '@/components/ui/message';
-import { PressableLink } from '@/components/ui/pressable-link';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Heading, Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { space } from '@/components/ui/tokens';
-import type { Board } from '@/server/contracts/board';
 import { roleAllows } from '@/server/contracts/roles';
 
 import { AddCandidateForm } from './add-candidate-form';
@@ -28,10 +26,12 @@ import { CardPager } from './card-pager';
 import { CommentThread } from './comment-thread';
 import { OverlayDiagram } from './diagram-slots';
 import { bestValues } from './figures';
+import { GatherBanner } from './gather-banner';
 import { PresenceList } from './presence-list';
 import { ReviewDetails } from './review-details';
 import { RoundPanel } from './round-panel';
 import { useBoardKeys } from './use-board-keys';
+import { useFollow } from './use-follow';
 
 type View_ = 'cards' | 'overlay';
 type PhoneTab = 'comments' | 'round' | 'here';
@@ -68,20 +68,11 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
   }, [reviewTeamId, team?.id, teams, selectTeam]);
 
   // ── Gather the room ───────────────────────────────────────────────────────────────
-  // Following is derived: someone else gathers, and I have not stopped following them.
-  const [stoppedFollowing, setStoppedFollowing] = useState<string | null>(null);
-  const onGathered = useCallback((g: { candidateId: string | null }) => {
-    // A gathering that ends clears "stopped following", so the next one is followed again.
-    if (g.candidateId === null) setStoppedFollowing(null);
-  }, []);
-  useReviewLiveUpdates(reviewId, onGathered);
-
+  useReviewLiveUpdates(reviewId);
   const data = board.data;
   const candidates = useMemo(() => data?.candidates ?? [], [data?.candidates]);
-  const gathering = data?.gathering ?? null;
-  const known = !!gathering && candidates.some((c) => c.id === gathering.candidateId);
-  const iGather = !!gathering && gathering.by.id === meId;
-  const following = known && !!meId && !iGather && stoppedFollowing !== gathering!.by.id;
+  const follow = useFollow(reviewId, data, meId);
+  const { gathering, following, iGather } = follow;
 
   const [ownId, setOwnId] = useState<string | null>(null);
   const ownValid = ownId && candidates.some((c) => c.id === ownId) ? ownId : null;
@@ -94,16 +85,25 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
   const select = useCallback(
     (id: string | null) => {
       setOwnId(id);
-      if (following && id !== gathering!.candidateId) setStoppedFollowing(gathering!.by.id);
+      if (following && id !== gathering!.candidateId) follow.stopFollowing();
       if (iGather && id && id !== gathering!.candidateId) sendGather(reviewId, id).catch(message.showError);
     },
-    [following, iGather, gathering, reviewId, message.showError],
+    [following, iGather, gathering, reviewId, message.showError, follow],
   );
   const stopFollowing = useCallback(() => {
     if (!gathering) return;
     setOwnId(gathering.candidateId);
-    setStoppedFollowing(gathering.by.id);
-  }, [gathering]);
+    follow.stopFollowing();
+  }, [gathering, follow]);
+
+  // A follower's phone opens the gathered candidate's detail page, once per place the
+  // gatherer takes the room (back on the board, it stays there until the gatherer moves on).
+  const { placeKey, opened, markOpened } = follow;
+  useEffect(() => {
+    if (wide || !following || !placeKey || opened === placeKey) return;
+    markOpened(placeKey);
+    router.push(candidateHref(reviewId, gathering!.candidateId));
+  }, [wide, following, placeKey, opened, markOpened, router, reviewId, gathering]);
   const gather = (id: string) => {
     setOwnId(id);
     sendGather(reviewId, id).catch(message.showError);
@@ -256,9 +256,9 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
         gatheredName={gatheredName}
         following={following}
         iGather={iGather}
-        stopped={!!gathering && !iGather && !following && known}
+        stopped={follow.stopped}
         onStopFollowing={stopFollowing}
-        onFollowAgain={() => setStoppedFollowing(null)}
+        onFollowAgain={follow.followAgain}
         onStopGathering={stopGathering}
         detailHref={!wide && gathering ? candidateHref(reviewId, gathering.candidateId) : undefined}
       />
@@ -426,85 +426,6 @@ function PanelSection({ title, children }: { title: string; children: React.Reac
   );
 }
 
-/**
- * Who gathers the room, and what that means for me: follow (with Stop following and
- * Escape), follow again after stopping, or, for the gatherer, Stop gathering.
- */
-function GatherBanner({
-  board,
-  gatheredName,
-  following,
-  iGather,
-  stopped,
-  onStopFollowing,
-  onFollowAgain,
-  onStopGathering,
-  detailHref,
-}: {
-  board: Board;
-  gatheredName: string | undefined;
-  following: boolean;
-  iGather: boolean;
-  stopped: boolean;
-  onStopFollowing: () => void;
-  onFollowAgain: () => void;
-  onStopGathering: () => void;
-  detailHref?: string;
-}) {
-  const t = useTheme();
-  const g = board.gathering;
-  if (!g || !gatheredName || (!following && !iGather && !stopped)) return null;
-  return (
-    <View
-      style={[styles.banner, { borderColor: t.cold, backgroundColor: t.surfaceRaised }]}
-      role="status"
-      aria-live="polite"
-      testID="gather-banner"
-    >
-      <Text size="small" style={styles.grow} testID="gather-banner-text">
-        {iGather ? (
-          <>
-            You are gathering the room at <Text weight="semibold">{gatheredName}</Text>.
-          </>
-        ) : following ? (
-          <>
-            <Text weight="semibold">{g.by.name}</Text> gathered the room at{' '}
-            <Text weight="semibold">{gatheredName}</Text>. You are following.
-          </>
-        ) : (
-          <>
-            <Text weight="semibold">{g.by.name}</Text> is gathering the room at{' '}
-            <Text weight="semibold">{gatheredName}</Text>. You stopped following.
-          </>
-        )}
-      </Text>
-      {iGather ? (
-        <Button label="Stop gathering" variant="secondary" small onPress={onStopGathering} testID="gather-stop" />
-      ) : following ? (
-        <>
-          {detailHref ? (
-            <PressableLink href={detailHref} accessibilityLabel={`Open ${gatheredName}`} style={styles.bannerLink}>
-              <Text size="small" weight="medium" tone="cold">
-                Open details
-              </Text>
-            </PressableLink>
-          ) : null}
-          <Button
-            label="Stop following"
-            accessibilityLabel="Stop following (Escape)"
-            variant="secondary"
-            small
-            onPress={onStopFollowing}
-            testID="follow-stop"
-          />
-        </>
-      ) : (
-        <Button label="Follow again" variant="secondary" small onPress={onFollowAgain} testID="follow-again" />
-      )}
-    </View>
-  );
-}
-
 const styles = StyleSheet.create({
   fill: { flex: 1 },
   grow: { flex: 1, minWidth: 160 },
@@ -523,15 +444,4 @@ const styles = StyleSheet.create({
   section: { gap: space[1] + space.half, borderBottomWidth: 1, paddingBottom: space[2] },
   phonePanel: { borderTopWidth: 1, paddingTop: space[2], gap: space[2] },
   threadHead: { flexDirection: 'row', alignItems: 'center', gap: space[1], flexWrap: 'wrap' },
-  banner: {
-    flexDirection: 'row',
-    alignItems: 'center',
-    flexWrap: 'wrap',
-    gap: space[1],
-    borderWidth: 1,
-    borderLeftWidth: 4,
-    borderRadius: 12,
-    padding: space[1] + space.half,
-  },
-  bannerLink: { minHeight: 44, justifyContent: 'center', paddingHorizontal: space[1] },
 });

@@ -1,15 +1,22 @@
+import { useRouter } from 'expo-router';
 import { useEffect } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import {
+  gatherRoom,
   reportViewing,
   useCandidate,
   useReviewLiveUpdates,
   useUpdateCandidateMutation,
   type CycleResultWire,
 } from '@/components/data/board';
+import { useMeQuery } from '@/components/data/me';
 import { TsDiagram } from '@/components/diagrams';
+import { candidateHref } from '@/components/screens/board/candidate-card';
 import { CommentThread } from '@/components/screens/board/comment-thread';
+import { GatherBanner } from '@/components/screens/board/gather-banner';
+import { useBoardKeys } from '@/components/screens/board/use-board-keys';
+import { useFollow } from '@/components/screens/board/use-follow';
 import { BackLink } from '@/components/ui/back-link';
 import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
@@ -43,6 +50,34 @@ export function CandidateScreen({ reviewId, candidateId }: { reviewId: string; c
     reportViewing(reviewId, candidateId);
     return () => reportViewing(reviewId, null);
   }, [reviewId, candidateId]);
+
+  // Following Gather the room here: the page moves with the gatherer; Escape stops following.
+  const router = useRouter();
+  const follow = useFollow(reviewId, board.data, useMeQuery().data?.user.id);
+  const { following, gathering, placeKey, markOpened } = follow;
+  const goTo = following && gathering && gathering.candidateId !== candidateId ? gathering.candidateId : null;
+  useEffect(() => {
+    if (!goTo || !placeKey) return;
+    markOpened(placeKey);
+    router.replace(candidateHref(reviewId, goTo));
+  }, [goTo, placeKey, markOpened, router, reviewId]);
+  useEffect(() => {
+    if (following && placeKey && gathering?.candidateId === candidateId) markOpened(placeKey);
+  }, [following, placeKey, gathering, candidateId, markOpened]);
+  useBoardKeys({ onEscape: following ? follow.stopFollowing : undefined });
+  const banner =
+    board.data && gathering ? (
+      <GatherBanner
+        board={board.data}
+        gatheredName={board.data.candidates.find((c) => c.id === gathering.candidateId)?.name}
+        following={following}
+        iGather={follow.iGather}
+        stopped={follow.stopped}
+        onStopFollowing={follow.stopFollowing}
+        onFollowAgain={follow.followAgain}
+        onStopGathering={() => void gatherRoom(reviewId, null)}
+      />
+    ) : null;
 
   const back = (
     <BackLink
@@ -82,7 +117,12 @@ export function CandidateScreen({ reviewId, candidateId }: { reviewId: string; c
       candidate={board.candidate}
       reviewName={board.data.review.name}
       canEdit={roleAllows(board.data.myRole, { candidate: ['update'] })}
-      back={back}
+      back={
+        <>
+          {back}
+          {banner}
+        </>
+      }
     />
   );
 }
