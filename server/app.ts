@@ -16,6 +16,7 @@ import { filesRouter } from '@/server/routes/files';
 import { publicRouter } from '@/server/routes/public';
 import { reviewsRouter } from '@/server/routes/reviews';
 import { roundsRouter } from '@/server/routes/rounds';
+import { scoresRouter } from '@/server/routes/scores';
 import { settingsRouter } from '@/server/routes/settings';
 import { teamsRouter } from '@/server/routes/teams';
 import type { Broadcast } from '@/server/services/broadcast';
@@ -80,6 +81,7 @@ export function createApp({
   app.use('/api', commentsRouter({ db, broadcast, mailer, origin }));
   app.use('/api', settingsRouter({ db }));
   app.use('/api', boardRouter({ db, broadcast }));
+  app.use('/api', scoresRouter({ db, broadcast }));
   app.use('/api', filesRouter({ db, broadcast, storage }));
   app.use('/api', apiNotFound);
 

@@ -59,6 +59,10 @@ export const measuredBest: Record<(typeof measuredFigures)[number], 'highest' | 
   co2KgPerMWh: 'lowest',
 };
 
+/** The caution line the exports carry (the words of components/ui/caution-line.tsx). */
+export const exportCaution =
+  'Concept-stage estimates; detailed design and acceptance follow the applicable codes, the machine maker\u2019s data and licensed engineering practice.';
+
 export const totalRule =
   'Weighted total: the mean of the criteria scores (1–5) weighted by the criteria weights, over the criteria scored for that candidate (weights renormalised); a candidate missing a criterion is marked incomplete.';
 
