@@ -12,6 +12,7 @@ import { serveWebBundle } from '@/server/http/web-bundle';
 import { boardRouter } from '@/server/routes/board';
 import { commentsRouter } from '@/server/routes/comments';
 import { cyclesRouter } from '@/server/routes/cycles';
+import { decisionRouter } from '@/server/routes/decision';
 import { filesRouter } from '@/server/routes/files';
 import { publicRouter } from '@/server/routes/public';
 import { reviewsRouter } from '@/server/routes/reviews';
@@ -83,6 +84,7 @@ export function createApp({
   app.use('/api', boardRouter({ db, broadcast }));
   app.use('/api', scoresRouter({ db, broadcast }));
   app.use('/api', filesRouter({ db, broadcast, storage }));
+  app.use('/api', decisionRouter({ db, broadcast, mailer, origin }));
   app.use('/api', apiNotFound);
 
   serveWebBundle(app, webDir);

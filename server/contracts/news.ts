@@ -1,6 +1,7 @@
 import { z } from 'zod';
 
 import { candidateSchema, commentSchema, designBasisSchema, presenceSchema, roundSchema } from './board';
+import { decisionRevisionNewsSchema } from './decision';
 import { storedFileSchema } from './files';
 import { scoreChangedSchema } from './matrix';
 import { reviewSchema } from './review';
@@ -39,6 +40,8 @@ export const reviewNews = {
   }),
   'file:added': z.object({ file: storedFileSchema }),
   'file:removed': z.object({ reviewId: z.string(), fileId: z.string(), candidateId: z.string().nullable() }),
+  'decision:updated': z.object({ reviewId: z.string(), revision: decisionRevisionNewsSchema }),
+  'decision:signed': z.object({ reviewId: z.string(), revision: decisionRevisionNewsSchema }),
   'score:changed': scoreChangedSchema,
 };
 

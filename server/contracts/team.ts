@@ -104,6 +104,10 @@ export const activityKinds = [
   // Files (detail carries the file's name).
   'file:added',
   'file:removed',
+  // The decision record (detail carries the review's name and the revision number).
+  'decision:updated',
+  'decision:signed',
+  'decision:reopened',
 ] as const;
 export type ActivityKind = (typeof activityKinds)[number];
 
