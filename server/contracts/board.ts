@@ -38,6 +38,18 @@ export const criterionSchema = z.object({
 });
 export type Criterion = z.infer<typeof criterionSchema>;
 
+/**
+ * Fired hours per year a basis without its own reads as: 6000, a mid-merit plant (common
+ * practice: a peaking unit runs a few hundred hours, a base-load plant most of the 8760).
+ */
+export const DEFAULT_FIRED_HOURS_PER_YEAR = 6000;
+
+export const firedHoursPerYearSchema = z
+  .number({ error: 'Fired hours per year must be a number.' })
+  .int({ error: 'Fired hours per year must be a whole number.' })
+  .min(1, { error: 'Fired hours per year must be at least 1.' })
+  .max(8784, { error: 'Fired hours per year must be at most 8784 (a leap year).' });
+
 export const fluidSchema = z.enum(['combustion', 'variable-cp-air', 'constant-cp-air'], {
   error: 'Property model must be combustion, variable-cp-air or constant-cp-air.',
 });
@@ -57,6 +69,8 @@ export const designBasisInput = z
       .gt(0, { error: 'Generator efficiency must be above 0.' })
       .max(1, { error: 'Generator efficiency must be at most 1.' }),
     limits: limitsSchema,
+    /** Left out: the basis reads as DEFAULT_FIRED_HOURS_PER_YEAR. */
+    firedHoursPerYear: firedHoursPerYearSchema.optional(),
     criteria: z
       .array(criterionInput, { error: 'Criteria must be a list.' })
       .min(1, { error: 'Keep at least one criterion.' })
@@ -102,6 +116,8 @@ export const designBasisSchema = z.object({
     exhaustTemperatureMinK: z.number().optional(),
     exhaustTemperatureMaxK: z.number().optional(),
   }),
+  /** Always sent (the default for a basis stored without it); optional for older payloads. */
+  firedHoursPerYear: z.number().optional(),
   criteria: z.array(criterionSchema),
   revision: z.number(),
   updatedAt: z.string(),

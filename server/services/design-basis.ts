@@ -3,7 +3,13 @@ import type { z } from 'zod';
 
 import type { Reader, Tx } from '@/db/client';
 import { designBasis } from '@/db/schema';
-import type { CandidateParameters, Criterion, DesignBasis, designBasisInput } from '@/server/contracts/board';
+import {
+  DEFAULT_FIRED_HOURS_PER_YEAR,
+  type CandidateParameters,
+  type Criterion,
+  type DesignBasis,
+  type designBasisInput,
+} from '@/server/contracts/board';
 import { evaluateRequestSchema } from '@/server/contracts/cycle';
 import { EngineInputError } from '@/server/engine';
 
@@ -59,6 +65,8 @@ export function toDesignBasis(row: BasisRow | null, defaultUpdatedAt: string): D
     netPowerKW: core.netPowerKW,
     generatorEfficiency: core.generatorEfficiency,
     limits: core.limits,
+    // A basis stored before fired hours existed reads as the default.
+    firedHoursPerYear: core.firedHoursPerYear ?? DEFAULT_FIRED_HOURS_PER_YEAR,
     criteria: (row?.criteria ?? defaultCriteria) as Criterion[],
     revision: row?.revision ?? defaultRevision,
     updatedAt: row ? row.updatedAt.toISOString() : defaultUpdatedAt,

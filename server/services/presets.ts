@@ -1,4 +1,10 @@
-import type { CandidateParameters, CandidatePreset, Criterion, DesignBasisInput } from '@/server/contracts/board';
+import {
+  DEFAULT_FIRED_HOURS_PER_YEAR,
+  type CandidateParameters,
+  type CandidatePreset,
+  type Criterion,
+  type DesignBasisInput,
+} from '@/server/contracts/board';
 
 /**
  * Starting points for a new candidate and for a new review's design basis. Every value is
@@ -123,7 +129,7 @@ export const defaultCriteria: Criterion[] = [
  * products as the working fluid, 50 MW net, a generator efficiency of 0.985 (typical
  * 0.98–0.99), a turbine inlet limit of 1700 K (the top of the heavy-duty range) and an
  * exhaust window of 700–900 K (hot enough for a heat-recovery boiler, below its usual
- * material limit).
+ * material limit), and 6000 fired hours a year (a mid-merit plant).
  */
 export const defaultDesignBasis: Omit<DesignBasisInput, 'criteria'> = {
   ambient: { temperatureK: 288.15, pressureKPa: 101.325, relativeHumidity: 0.6 },
@@ -132,4 +138,5 @@ export const defaultDesignBasis: Omit<DesignBasisInput, 'criteria'> = {
   netPowerKW: 50_000,
   generatorEfficiency: 0.985,
   limits: { maxTurbineInletTemperatureK: 1700, exhaustTemperatureMinK: 700, exhaustTemperatureMaxK: 900 },
+  firedHoursPerYear: DEFAULT_FIRED_HOURS_PER_YEAR,
 };

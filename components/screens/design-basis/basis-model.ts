@@ -15,6 +15,8 @@ export type BasisFormValues = {
   generatorEfficiency: string;
   limits: { maxTurbineInletTemperatureK: string; exhaustTemperatureMinK: string; exhaustTemperatureMaxK: string };
   criteria: Array<{ id?: string; name: string; weight: string; measure: string | null }>;
+  /** Not on this form (the Site year screen sets it); carried so a save keeps it. */
+  firedHoursPerYear?: number;
 };
 
 export const fluidExplained: Record<BasisFormValues['fluid'], { label: string; line: string }> = {
@@ -55,6 +57,7 @@ export function toBasisForm(b: DesignBasis, system: UnitSystem): BasisFormValues
       exhaustTemperatureMaxK: t(b.limits.exhaustTemperatureMaxK),
     },
     criteria: b.criteria.map((c) => ({ id: c.id, name: c.name, weight: String(c.weight), measure: c.measure })),
+    firedHoursPerYear: b.firedHoursPerYear,
   };
 }
 
@@ -89,6 +92,7 @@ export function toBasisInput(v: BasisFormValues, system: UnitSystem) {
       weight: weight(c.weight),
       measure: c.measure,
     })),
+    ...(v.firedHoursPerYear !== undefined ? { firedHoursPerYear: v.firedHoursPerYear } : {}),
   };
 }
 
@@ -104,6 +108,7 @@ export function basisFormSchema(system: UnitSystem) {
       generatorEfficiency: s,
       limits: z.object({ maxTurbineInletTemperatureK: s, exhaustTemperatureMinK: s, exhaustTemperatureMaxK: s }),
       criteria: z.array(z.object({ id: z.string().optional(), name: s, weight: s, measure: s.nullable() })),
+      firedHoursPerYear: z.number().optional(),
     })
     .transform((v): unknown => toBasisInput(v as BasisFormValues, system))
     .pipe(designBasisInput);
