@@ -4,6 +4,7 @@ export * from './activity';
 export * from './board';
 export * from './settings';
 export * from './decision';
+export * from './site-year';
 
 /**
  * The product's words for better-auth's generated tables: a Team is an `organization`, a
