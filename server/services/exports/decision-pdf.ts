@@ -30,6 +30,9 @@ const footerSpace = 44;
 
 type Doc = PDFKit.PDFDocument;
 
+/** The mono face's word space has no outline data the font reader accepts; an en space looks the same. */
+const monoSafe = (text: string) => text.replace(/ /g, '\u2002');
+
 /** 3–4 significant figures with a thin grouping space, as on the screens. */
 function fig(value: unknown, significant = 4): string {
   if (typeof value !== 'number' || !Number.isFinite(value)) return '—';
@@ -87,13 +90,15 @@ class Writer {
       .text(text, margin, this.doc.y, { width: this.width });
   }
   /** A table with a first column of labels; numbers in the mono face, right-aligned. */
-  table(head: string[], rows: string[][], firstWidth = 170) {
+  table(head: string[], rows: string[][], firstWidth = 170, numbers = true) {
     const cols = head.length - 1;
     const colWidth = cols > 0 ? (this.width - firstWidth) / cols : 0;
     const line = (cells: string[], bold: boolean) => {
+      const mono = (i: number) => numbers && i > 0 && !bold;
+      cells = cells.map((cell, i) => (mono(i) ? monoSafe(cell) : cell));
       const heights = cells.map((cell, i) =>
         this.doc
-          .font(bold ? 'SansBold' : i === 0 ? 'Sans' : 'Mono')
+          .font(bold ? 'SansBold' : mono(i) ? 'Mono' : 'Sans')
           .fontSize(8.5)
           .heightOfString(cell, { width: (i === 0 ? firstWidth : colWidth) - 6 }),
       );
@@ -103,7 +108,7 @@ class Writer {
       cells.forEach((cell, i) => {
         const x = i === 0 ? margin : margin + firstWidth + (i - 1) * colWidth;
         this.doc
-          .font(bold ? 'SansBold' : i === 0 ? 'Sans' : 'Mono')
+          .font(bold ? 'SansBold' : mono(i) ? 'Mono' : 'Sans')
           .fontSize(8.5)
           .fillColor(ink)
           .text(cell, x + 3, y + 3, {
@@ -336,6 +341,7 @@ export function drawDecisionPdf({ reviewName, revision, snapshot }: PdfData): Pr
       ['Criteria (weight)', basis.criteria.map((c) => `${c.name} (${fig(c.weight, 3)})`).join(', ')],
     ],
     200,
+    false,
   );
 
   w.heading('T-s diagram of the candidates');
@@ -381,6 +387,7 @@ export function drawDecisionPdf({ reviewName, revision, snapshot }: PdfData): Pr
       ['Action', 'Owner', 'Due'],
       revision.actions.map((a) => [a.text, a.owner, a.due]),
       260,
+      false,
     );
 
   w.heading('Signature');
