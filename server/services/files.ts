@@ -86,7 +86,7 @@ export async function detectFileType(bytes: Buffer, name: string): Promise<Allow
   if (found) {
     if (!Object.hasOwn(allowedFileTypes, found.mime)) {
       throw fileError(
-        `The content is a ${found.ext.toUpperCase()} file (${found.mime}); only ${allowedList} files can be attached.`,
+        `The content is of type ${found.ext.toUpperCase()} (${found.mime}); only ${allowedList} files can be attached.`,
         'file_type_not_allowed',
       );
     }

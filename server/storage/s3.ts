@@ -22,6 +22,9 @@ export function s3Storage(settings: S3Settings): FileStorage & { client: S3Clien
     region: settings.region,
     forcePathStyle: settings.forcePathStyle,
     credentials: { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey },
+    // Checksums only where S3 requires them: S3-compatible stores do not all read the trailers.
+    requestChecksumCalculation: 'WHEN_REQUIRED',
+    responseChecksumValidation: 'WHEN_REQUIRED',
   });
   const Bucket = settings.bucket;
   return {
