@@ -42,9 +42,10 @@ export function boardRouter({ db, broadcast }: { db: Database; broadcast: Broadc
   router.patch('/reviews/:reviewId/candidates/:candidateId', async (req, res) => {
     const { reviewId, candidateId } = parse(candidateParams, req.params);
     const input = parse(updateCandidateInput, req.body);
-    await requireReview(db, res.locals.user.id, reviewId, { candidate: ['update'] });
+    const { teamId } = await requireReview(db, res.locals.user.id, reviewId, { candidate: ['update'] });
+    const { id: actorId, name: actorName } = res.locals.user;
     try {
-      res.json(await updateCandidate({ db, broadcast, actorId: res.locals.user.id }, reviewId, candidateId, input));
+      res.json(await updateCandidate({ db, broadcast, actorId, actorName, teamId }, reviewId, candidateId, input));
     } catch (error) {
       // A stale revision answers with the candidate as it is now, beside the envelope.
       if (!(error instanceof CandidateConflict)) throw error;

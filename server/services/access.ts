@@ -33,18 +33,29 @@ export async function requireTeam(
   return { teamId, role, memberId: row.id };
 }
 
-/** Loads a review and checks the user's membership of its team, as `requireTeam` does. */
-export async function requireReview(db: Database, userId: string, reviewId: string, permission?: Permission) {
+/**
+ * Loads a review and checks the user's membership of its team, as `requireTeam` does, in one
+ * query (the review and the user's membership row together).
+ */
+export async function requireReview(
+  db: Database,
+  userId: string,
+  reviewId: string,
+  permission?: Permission,
+): Promise<TeamAccess> {
   if (!uuidPattern.test(reviewId)) throw ApiError.notFound('The Review');
-  const [row] = await db.select({ teamId: review.teamId }).from(review).where(eq(review.id, reviewId)).limit(1);
-  if (!row) throw ApiError.notFound('The Review');
-  try {
-    return await requireTeam(db, userId, row.teamId, permission);
-  } catch (error) {
-    // Outsiders learn nothing: a review of a team they are not in is simply not found.
-    if (error instanceof ApiError && error.status === 404) throw ApiError.notFound('The Review');
-    throw error;
-  }
+  const [row] = await db
+    .select({ teamId: review.teamId, memberId: teamMember.id, role: teamMember.role })
+    .from(review)
+    .leftJoin(teamMember, and(eq(teamMember.organizationId, review.teamId), eq(teamMember.userId, userId)))
+    .where(eq(review.id, reviewId))
+    .limit(1);
+  // Outsiders learn nothing: a review of a team they are not in is simply not found.
+  if (!row || !row.memberId || row.role === null) throw ApiError.notFound('The Review');
+  const role = primaryRole(row.role);
+  if (!role) throw ApiError.forbidden(`Your role "${row.role}" is not one of this product's roles.`);
+  if (permission && !roleAllows(role, permission)) throw ApiError.forbidden();
+  return { teamId: row.teamId, role, memberId: row.memberId };
 }
 
 /** The members of a Review's Team now, with their roles: who its room may tell, and how. */

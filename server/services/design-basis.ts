@@ -38,6 +38,10 @@ export async function readBasis(db: Reader, reviewId: string): Promise<BasisRow 
  * candidate is never computed from a basis that is being replaced.
  */
 export async function lockBasis(tx: Tx, reviewId: string, mode: 'update' | 'share'): Promise<BasisRow> {
+  const locked = () => tx.select().from(designBasis).where(eq(designBasis.reviewId, reviewId)).for(mode);
+  // Nearly always there: one round trip. A review without one gets the default first.
+  const [row] = await locked();
+  if (row) return row;
   await tx
     .insert(designBasis)
     .values({
@@ -47,8 +51,8 @@ export async function lockBasis(tx: Tx, reviewId: string, mode: 'update' | 'shar
       revision: defaultRevision,
     })
     .onConflictDoNothing({ target: designBasis.reviewId });
-  const [row] = await tx.select().from(designBasis).where(eq(designBasis.reviewId, reviewId)).for(mode);
-  return row;
+  const [made] = await locked();
+  return made;
 }
 
 export function coreOf(row: BasisRow): BasisCore {
