@@ -15,10 +15,12 @@ import { cyclesRouter } from '@/server/routes/cycles';
 import { decisionRouter } from '@/server/routes/decision';
 import { filesRouter } from '@/server/routes/files';
 import { publicRouter } from '@/server/routes/public';
+import { reviewActivityRouter } from '@/server/routes/review-activity';
 import { reviewsRouter } from '@/server/routes/reviews';
 import { roundsRouter } from '@/server/routes/rounds';
 import { scoresRouter } from '@/server/routes/scores';
 import { settingsRouter } from '@/server/routes/settings';
+import { siteYearRouter } from '@/server/routes/site-year';
 import { teamsRouter } from '@/server/routes/teams';
 import type { Broadcast } from '@/server/services/broadcast';
 import { postgresStorage, type FileStorage } from '@/server/storage';
@@ -85,6 +87,8 @@ export function createApp({
   app.use('/api', scoresRouter({ db, broadcast }));
   app.use('/api', filesRouter({ db, broadcast, storage }));
   app.use('/api', decisionRouter({ db, broadcast, mailer, origin }));
+  app.use('/api', reviewActivityRouter({ db }));
+  app.use('/api', siteYearRouter({ db, broadcast }));
   app.use('/api', apiNotFound);
 
   serveWebBundle(app, webDir);
