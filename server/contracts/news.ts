@@ -5,6 +5,7 @@ import { decisionRevisionNewsSchema } from './decision';
 import { storedFileSchema } from './files';
 import { scoreChangedSchema } from './matrix';
 import { reviewSchema } from './review';
+import { siteYearSummarySchema } from './site-year';
 
 /**
  * What a Team's room is told, one schema per event (`resource:past-tense`). The server sends
@@ -39,6 +40,8 @@ export const reviewNews = {
     by: z.object({ id: z.string(), name: z.string() }),
   }),
   'file:added': z.object({ file: storedFileSchema }),
+  /** The review's hourly profile was stored, replaced (its summary) or removed (null): refetch the site year. */
+  'site-year:updated': z.object({ reviewId: z.string(), profile: siteYearSummarySchema.nullable() }),
   'file:removed': z.object({ reviewId: z.string(), fileId: z.string(), candidateId: z.string().nullable() }),
   'decision:updated': z.object({ reviewId: z.string(), revision: decisionRevisionNewsSchema }),
   'decision:signed': z.object({ reviewId: z.string(), revision: decisionRevisionNewsSchema }),

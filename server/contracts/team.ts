@@ -108,6 +108,9 @@ export const activityKinds = [
   'decision:updated',
   'decision:signed',
   'decision:reopened',
+  // The site year (detail carries the review's name and the profile file's name).
+  'site-year:updated',
+  'site-year:removed',
 ] as const;
 export type ActivityKind = (typeof activityKinds)[number];
 
