@@ -192,4 +192,30 @@ describe('a meeting on the live board: Lead at 1440×900, Reviewer at 390×844',
     await shot(phone, 'phone-comment');
     await shot(desk, 'desk-after-meeting');
   });
+
+  it('at 360 px in the dark: one bottom bar, nothing wider than the screen, the T-s diagram drawn', async () => {
+    const narrow = await signedIn(reviewer, { width: 360, height: 740 });
+    await narrow.emulateMedia({ colorScheme: 'dark' });
+    await narrow.goto(board());
+    await byTestId(narrow, `card-ts-${ids.simple}`).waitFor();
+    // The Review's bar replaces the main one on a phone.
+    expect(await byTestId(narrow, 'nav-reviews').count()).toBe(0);
+    const overflow = await narrow.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    const card = await byTestId(narrow, `candidate-card-${ids.simple}`).boundingBox();
+    expect(card!.x).toBeGreaterThanOrEqual(0);
+    expect(card!.x + card!.width).toBeLessThanOrEqual(360);
+    // Dark: the page is dark behind light text.
+    const [bg, fg] = await byTestId(narrow, 'board-screen').evaluate((el) => {
+      const lum = (c: string) => {
+        const [r, g, b] = (c.match(/\d+/g) ?? []).map(Number);
+        return 0.2126 * r! + 0.7152 * g! + 0.0722 * b!;
+      };
+      const heading = el.querySelector('h1') ?? el;
+      return [lum(getComputedStyle(el).backgroundColor), lum(getComputedStyle(heading).color)];
+    });
+    expect(bg).toBeLessThan(80);
+    expect(fg).toBeGreaterThan(170);
+    await shot(narrow, 'phone-360-dark');
+  });
 });

@@ -209,7 +209,7 @@ describe.each(viewports)('first journey at $name size', ({ name: viewport, size 
     await snap(page, viewport, '06-review-page');
 
     // Archive: it leaves the active list and shows under Archived.
-    await byTestId(page, 'nav-reviews').click();
+    await byTestId(page, 'back-to-reviews').click();
     await page.locator('[data-testid^="review-archive-"]').first().click();
     await byTestId(page, 'reviews-empty').waitFor();
     await byTestId(page, 'review-filter-archived').click();
