@@ -11,6 +11,8 @@ import { postComment } from '@/server/services/comments';
 import { createReview } from '@/server/services/reviews';
 import { castBallot, closeRound, openRound } from '@/server/services/rounds';
 
+import { seedDemoSiteYear } from './demo-site-year';
+
 /**
  * Demo data, a scenario of our own: Tindra Kraft, an invented northern utility, chooses
  * the cycle of a 40 MW peaking unit at its invented Kestrel Fell site (cold climate).
@@ -83,7 +85,9 @@ export async function seedDemo(db: Database) {
     await createReview({ db, broadcast: noBroadcast, actorId: ids.lead }, teamId, r);
   }
   // The first review opens onto a working board: its basis and candidates, then a closed round and comments.
-  await seedDemoBoard(db, teamId, ids);
+  const board = await seedDemoBoard(db, teamId, ids);
+  // Its invented hourly year, for the candidates' rating curves and years.
+  await seedDemoSiteYear(db, board.reviewId, ids.lead);
   await seedDemoDiscussion(db, teamId, ids);
   return { teamId };
 }
@@ -111,6 +115,8 @@ export async function seedDemoBoard(db: Database, teamId: string, ids: Record<Te
     netPowerKW: 40_000,
     generatorEfficiency: 0.984,
     limits: { maxTurbineInletTemperatureK: 1650, exhaustTemperatureMinK: 700, exhaustTemperatureMaxK: 900 },
+    // A peaking unit: a few hundred fired hours a year (common practice).
+    firedHoursPerYear: 600,
     criteria: [
       { id: 'efficiency', name: 'Efficiency', weight: 15, measure: 'thermalEfficiency' },
       { id: 'specific-work', name: 'Specific work', weight: 20, measure: 'netWorkKJPerKg' },
