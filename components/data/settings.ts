@@ -1,6 +1,6 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
-import type { Settings, UpdateSettingsInput } from '@/server/contracts/settings';
+import { defaultSettings, type Settings, type UpdateSettingsInput } from '@/server/contracts/settings';
 
 import { api } from './api';
 import { meKeys } from './me';
@@ -33,7 +33,7 @@ export function useUpdateSettingsMutation() {
       // A fetch still on its way must not put the old value back over the new one.
       await qc.cancelQueries({ queryKey: settingsKeys.mine });
       const before = qc.getQueryData<Settings>(settingsKeys.mine);
-      qc.setQueryData<Settings>(settingsKeys.mine, (old) => ({ ...(old ?? { unitSystem: 'si' }), ...input }));
+      qc.setQueryData<Settings>(settingsKeys.mine, (old) => ({ ...(old ?? defaultSettings), ...input }));
       return { before };
     },
     onError: (_error, _input, context) => {

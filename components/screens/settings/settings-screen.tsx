@@ -5,6 +5,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { authClient } from '@/components/auth/auth-client';
 import { useMeQuery } from '@/components/data/me';
+import { useSettingsQuery, useUpdateSettingsMutation } from '@/components/data/settings';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Choice } from '@/components/ui/field';
@@ -24,6 +25,37 @@ const unitSummary: Record<UnitSystem, string> = {
 };
 
 const unitOptions = (['si', 'us'] as const).map((value) => ({ value, label: unitSystemLabels[value] }));
+
+type DigestChoice = 'off' | 'daily';
+const digestOptions = [
+  { value: 'off', label: 'No digest' },
+  { value: 'daily', label: 'Every morning' },
+] as const;
+
+/** The daily digest of comments, kept with the account like the units. */
+function DigestCard() {
+  const settings = useSettingsQuery();
+  const update = useUpdateSettingsMutation();
+  const value: DigestChoice = settings.data?.dailyDigest ? 'daily' : 'off';
+  return (
+    <Card style={styles.card}>
+      <Heading level={2}>E-mail</Heading>
+      <Choice<DigestChoice>
+        label="Daily digest of comments"
+        options={digestOptions}
+        value={value}
+        onChange={(next) => update.mutate({ dailyDigest: next === 'daily' })}
+        testID="daily-digest"
+        error={update.error ? `Not saved: ${messageFor(update.error)}` : null}
+      />
+      <Text size="small" tone="soft" testID="daily-digest-summary">
+        {value === 'daily'
+          ? 'Each morning at 07:00 UTC, one e-mail with the comments others posted in your Reviews since the last one (none when nothing is new).'
+          : 'You hear by e-mail only when someone @mentions you, invites you or signs a decision.'}
+      </Text>
+    </Card>
+  );
+}
 
 /** Account with sign-out, and the display units. */
 export function SettingsScreen() {
@@ -87,6 +119,7 @@ export function SettingsScreen() {
           US customary, hp below 1 MW).
         </Text>
       </Card>
+      <DigestCard />
     </Screen>
   );
 }
