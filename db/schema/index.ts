@@ -5,6 +5,7 @@ export * from './board';
 export * from './settings';
 export * from './decision';
 export * from './site-year';
+export * from './robustness';
 
 /**
  * The product's words for better-auth's generated tables: a Team is an `organization`, a
