@@ -14,7 +14,7 @@ let t: ScoringTeam;
 let board: CandidateWire[];
 let matrix: Matrix;
 
-function binary(res: NodeJS.ReadableStream, done: (error: Error | null, body: Buffer) => void) {
+function binary(res: any, done: (error: Error | null, body: Buffer) => void) {
   const chunks: Buffer[] = [];
   res.on('data', (c: Buffer) => chunks.push(c));
   res.on('end', () => done(null, Buffer.concat(chunks)));
@@ -87,7 +87,7 @@ describe('the comparison matrix as XLSX', () => {
       /^attachment; filename="?Oona-review-comparison-matrix\.xlsx"?$/,
     );
     book = new ExcelJS.Workbook();
-    await book.xlsx.load(res.body as Buffer);
+    await book.xlsx.load(res.body as unknown as Parameters<typeof book.xlsx.load>[0]);
   });
 
   it('has the sheet Matrix with the caution line on top and every figure stored as a number', () => {

@@ -1,8 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
 
-import { ScoringPlaceholderScreen } from '@/components/screens/board/scoring-placeholder-screen';
+import { MatrixScreen } from '@/components/screens/matrix/matrix-screen';
 
 export default function MatrixRoute() {
   const { reviewId } = useLocalSearchParams<{ reviewId: string }>();
-  return <ScoringPlaceholderScreen reviewId={reviewId} place="matrix" />;
+  return <MatrixScreen reviewId={reviewId} />;
 }
