@@ -1,13 +1,16 @@
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 
-import { createDatabase } from '@/db/client';
+import { createDatabase, type Database } from '@/db/client';
 import { attachRealtime, type SocketLimits } from '@/realtime/server';
 import { createApp } from '@/server/app';
 import { createAuth } from '@/server/auth/auth';
 import type { AuthLimits } from '@/server/auth/gate';
 import { createSmtpMailer } from '@/server/auth/mailer';
+import { startMailJobs } from '@/server/jobs/mail';
+import { startJobQueue, type QueueOptions } from '@/server/jobs/queue';
 import type { Broadcast } from '@/server/services/broadcast';
+import { storageFromEnv, type FileStorage } from '@/server/storage';
 
 export type ServerConfig = {
   databaseUrl: string;
@@ -23,6 +26,10 @@ export type ServerConfig = {
   trustProxy?: boolean | number | string;
   authLimits?: AuthLimits;
   socketLimits?: SocketLimits;
+  /** Where uploaded files' bytes go; from CYCLEMOOT_STORAGE (Postgres by default) when absent. */
+  storage?: (db: Database) => FileStorage;
+  /** The job queue's polling and retry settings (mail). */
+  queue?: QueueOptions;
 };
 
 export type RunningServer = { url: string; close(): Promise<void> };
@@ -46,7 +53,12 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
   const { port } = httpServer.address() as AddressInfo;
   const origin = config.origin ?? `http://${host}:${port}`;
 
-  const mailer = createSmtpMailer({ ...config.smtp, from: 'Cyclemoot <no-reply@cyclemoot.test>' });
+  // Every mail goes through the job queue: a request only enqueues it, and a worker sends it
+  // by SMTP, retrying with back-off while the mail server is away.
+  const smtp = createSmtpMailer({ ...config.smtp, from: 'Cyclemoot <no-reply@cyclemoot.test>' });
+  const queue = await startJobQueue(config.databaseUrl, config.queue);
+  const mailer = await startMailJobs({ db, queue, smtp, origin });
+  const storage = config.storage ? config.storage(db) : storageFromEnv(db);
   const auth = createAuth({ db, baseURL: origin, secret: config.secret, mailer });
   const app = createApp({
     db,
@@ -56,6 +68,7 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
     trustProxy: config.trustProxy,
     authLimits: config.authLimits,
     mailer,
+    storage,
     webDir: config.webDir,
   });
   httpServer.on('request', app);
@@ -67,6 +80,7 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
     async close() {
       await new Promise<void>((resolve) => realtime.io.close(() => resolve()));
       httpServer.closeAllConnections();
+      await queue.stop();
       await db.$client.end();
     },
   };

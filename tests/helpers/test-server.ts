@@ -7,9 +7,11 @@ import { inject } from 'vitest';
 
 import type { SocketLimits } from '@/realtime/server';
 import { productionAuthLimits, type AuthLimits } from '@/server/auth/gate';
-import { startServer } from '@/server/index';
+import { startServer, type ServerConfig } from '@/server/index';
+import type { QueueOptions } from '@/server/jobs/queue';
 import { chromiumPath } from '@/server/ops/chromium';
 import { webDir } from '@/server/ops/web-build';
+import { postgresStorage } from '@/server/storage';
 
 export const testSecret = 'test-secret-for-sessions-0123456789abcdef';
 
@@ -21,22 +23,43 @@ export const roomyAuthLimits: AuthLimits = Object.fromEntries(
   Object.entries(productionAuthLimits).map(([name, rule]) => [name, { ...rule, points: rule.points * 1000 }]),
 ) as AuthLimits;
 
-/** A real server on a free loopback port: test database, mail fake, the built web app. */
+/**
+ * The job queue in tests: idle workers look twice a second and a failed mail is tried again
+ * after about a second, then two, four… (production: every second, first retry after two).
+ */
+export const testQueueOptions: QueueOptions = { pollingIntervalSeconds: 0.5, retryDelaySeconds: 1 };
+
+/**
+ * A real server on a free loopback port: test database, mail fake (the run's own unless
+ * `mail` names another), the job queue, file storage (Postgres unless `storage`), the built web app.
+ */
 export async function startTestServer({
   authLimits = roomyAuthLimits,
   socketLimits,
   databaseUrl = inject('databaseUrl'),
-}: { authLimits?: AuthLimits; socketLimits?: SocketLimits; databaseUrl?: string } = {}) {
+  mail,
+  storage,
+  queue = testQueueOptions,
+}: {
+  authLimits?: AuthLimits;
+  socketLimits?: SocketLimits;
+  databaseUrl?: string;
+  mail?: { smtpPort: number; webURL: string };
+  storage?: ServerConfig['storage'];
+  queue?: QueueOptions;
+} = {}) {
   const server = await startServer({
     authLimits,
     socketLimits,
     databaseUrl,
     secret: testSecret,
-    smtp: { host: '127.0.0.1', port: inject('smtpPort') },
+    smtp: { host: '127.0.0.1', port: mail?.smtpPort ?? inject('smtpPort') },
     port: 0,
     webDir,
+    storage: storage ?? ((db) => postgresStorage(db)),
+    queue,
   });
-  return { baseURL: server.url, mailboxURL: inject('mailboxURL'), stop: () => server.close() };
+  return { baseURL: server.url, mailboxURL: mail?.webURL ?? inject('mailboxURL'), stop: () => server.close() };
 }
 
 export type Mail = { id: string; subject: string; to: Array<{ address: string }>; text: string; html?: string };
