@@ -10,6 +10,7 @@ import { createCandidate, updateCandidate } from '@/server/services/candidates';
 import { postComment } from '@/server/services/comments';
 import { createReview } from '@/server/services/reviews';
 import { castBallot, closeRound, openRound } from '@/server/services/rounds';
+import { putScores } from '@/server/services/scores';
 
 import { seedDemoSiteYear } from './demo-site-year';
 
@@ -89,6 +90,7 @@ export async function seedDemo(db: Database) {
   // Its invented hourly year, for the candidates' rating curves and years.
   await seedDemoSiteYear(db, board.reviewId, ids.lead);
   await seedDemoDiscussion(db, teamId, ids);
+  await seedDemoScores(db, board.reviewId, ids);
   return { teamId };
 }
 
@@ -237,4 +239,64 @@ export async function seedDemoDiscussion(db: Database, teamId: string, ids: Reco
   await post('lead', 'demo-comment-05', 'Keep it proposed until the second round; Rafael wants to see the sweep.', {
     parentId: intercooling,
   });
+}
+
+/**
+ * The first demo review's Scores, so the comparison matrix opens populated: the Lead, the
+ * Engineer and the Reviewer mark the judged criteria (1–5) through the service; the Reviewer
+ * overrides one pre-score with a reason. Nobody has judged the first cost of the combined
+ * cycle yet, so the matrix shows that candidate as incomplete.
+ */
+export async function seedDemoScores(db: Database, reviewId: string, ids: Record<TeamRole, string>) {
+  const found = await db
+    .select({ id: candidate.id, preset: candidate.preset })
+    .from(candidate)
+    .where(eq(candidate.reviewId, reviewId))
+    .orderBy(asc(candidate.position));
+  const id = (preset: string) => found.find((c) => c.preset === preset)?.id;
+  // complexity, maintainability, first-cost per preset, per person (5 = best: simplest, cheapest).
+  const marks: Record<'lead' | 'engineer' | 'reviewer', Record<string, [number, number, number | null]>> = {
+    lead: {
+      simple: [5, 5, 5],
+      regenerative: [3, 3, 3],
+      intercooled: [3, 3, 3],
+      reheat: [3, 3, 3],
+      'intercooled-reheat-regenerative': [1, 2, null],
+    },
+    engineer: {
+      simple: [5, 4, 5],
+      regenerative: [4, 3, 3],
+      intercooled: [2, 3, 4],
+      reheat: [3, 2, 3],
+      'intercooled-reheat-regenerative': [1, 1, null],
+    },
+    reviewer: {
+      simple: [4, 5, 4],
+      regenerative: [3, 4, 2],
+      intercooled: [3, 2, 3],
+      reheat: [2, 3, 3],
+      'intercooled-reheat-regenerative': [2, 1, null],
+    },
+  };
+  const judged = ['complexity', 'maintainability', 'first-cost'] as const;
+  for (const [role, byPreset] of Object.entries(marks) as Array<[keyof typeof marks, (typeof marks)['lead']]>) {
+    const scores: Array<{ candidateId: string; criterionId: string; score: number; reason: string }> = Object.entries(
+      byPreset,
+    ).flatMap(([preset, values]) => {
+      const candidateId = id(preset);
+      if (!candidateId) return [];
+      return judged.flatMap((criterionId, i) =>
+        values[i] === null ? [] : [{ candidateId, criterionId, score: values[i], reason: '' }],
+      );
+    });
+    if (role === 'reviewer' && id('regenerative')) {
+      scores.push({
+        candidateId: id('regenerative')!,
+        criterionId: 'efficiency',
+        score: 3,
+        reason: 'At 600 fired hours a year its efficiency gain weighs less than the longer start.',
+      });
+    }
+    await putScores({ db, broadcast: noBroadcast, actorId: ids[role] }, reviewId, scores);
+  }
 }
