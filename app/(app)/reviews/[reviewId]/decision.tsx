@@ -1,8 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
 
-import { ScoringPlaceholderScreen } from '@/components/screens/board/scoring-placeholder-screen';
+import { DecisionScreen } from '@/components/screens/decision/decision-screen';
 
 export default function DecisionRoute() {
   const { reviewId } = useLocalSearchParams<{ reviewId: string }>();
-  return <ScoringPlaceholderScreen reviewId={reviewId} place="decision" />;
+  return <DecisionScreen reviewId={reviewId} />;
 }
