@@ -17,6 +17,7 @@ import { filesRouter } from '@/server/routes/files';
 import { publicRouter } from '@/server/routes/public';
 import { reviewActivityRouter } from '@/server/routes/review-activity';
 import { reviewsRouter } from '@/server/routes/reviews';
+import { robustnessRouter } from '@/server/routes/robustness';
 import { roundsRouter } from '@/server/routes/rounds';
 import { scoresRouter } from '@/server/routes/scores';
 import { settingsRouter } from '@/server/routes/settings';
@@ -89,6 +90,7 @@ export function createApp({
   app.use('/api', decisionRouter({ db, broadcast, mailer, origin }));
   app.use('/api', reviewActivityRouter({ db }));
   app.use('/api', siteYearRouter({ db, broadcast }));
+  app.use('/api', robustnessRouter({ db, broadcast }));
   app.use('/api', apiNotFound);
 
   serveWebBundle(app, webDir);

@@ -10,6 +10,7 @@ import { createSmtpMailer } from '@/server/auth/mailer';
 import { startMailJobs } from '@/server/jobs/mail';
 import { startJobQueue, type QueueOptions } from '@/server/jobs/queue';
 import type { Broadcast } from '@/server/services/broadcast';
+import { closeRobustness } from '@/server/services/robustness';
 import { storageFromEnv, type FileStorage } from '@/server/storage';
 
 export type ServerConfig = {
@@ -80,6 +81,7 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
     async close() {
       await new Promise<void>((resolve) => realtime.io.close(() => resolve()));
       httpServer.closeAllConnections();
+      await closeRobustness(db);
       await queue.stop();
       await db.$client.end();
     },

@@ -42,6 +42,8 @@ export const reviewNews = {
   'file:added': z.object({ file: storedFileSchema }),
   /** The review's hourly profile was stored, replaced (its summary) or removed (null): refetch the site year. */
   'site-year:updated': z.object({ reviewId: z.string(), profile: siteYearSummarySchema.nullable() }),
+  'robustness:progress': z.object({ reviewId: z.string(), runId: z.string(), done: z.number(), total: z.number() }),
+  'robustness:finished': z.object({ reviewId: z.string(), runId: z.string() }),
   'file:removed': z.object({ reviewId: z.string(), fileId: z.string(), candidateId: z.string().nullable() }),
   'decision:updated': z.object({ reviewId: z.string(), revision: decisionRevisionNewsSchema }),
   'decision:signed': z.object({ reviewId: z.string(), revision: decisionRevisionNewsSchema }),

@@ -111,6 +111,9 @@ export const activityKinds = [
   // The site year (detail carries the review's name and the profile file's name).
   'site-year:updated',
   'site-year:removed',
+  // The robustness check (detail carries the review's name, the samples and the seed).
+  'robustness:started',
+  'robustness:finished',
 ] as const;
 export type ActivityKind = (typeof activityKinds)[number];
 
