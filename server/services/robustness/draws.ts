@@ -200,10 +200,14 @@ export function runDraws(job: DrawJob, bestEnd: BestEnd): DrawPartial {
   // Nominal heat rate at a drawn ambient, to scale a candidate's year by its drawn heat rate.
   const nominalHeatRate = new Map<string, number | null>();
   const nominalAt = (j: number, ambient: CycleInput['ambient']) => {
-    const key = `${j}:${ambient.temperatureK.toFixed(1)}:${ambient.relativeHumidity.toFixed(2)}`;
+    // On a 1 K × 0.1 grid of ambient: the ratio of heat rates varies slowly with the ambient.
+    const tK = Math.round(ambient.temperatureK);
+    const rh = Math.round(ambient.relativeHumidity * 10) / 10;
+    const key = `${j}:${tK}:${rh}`;
     if (!nominalHeatRate.has(key)) {
       const c = candidates[j]!;
-      const input = { ...c.input, ambient, compressor: { ...c.input.compressor } } as CycleInput;
+      const at = { ...ambient, temperatureK: tK, relativeHumidity: rh };
+      const input = { ...c.input, ambient: at, compressor: { ...c.input.compressor } } as CycleInput;
       if (!c.ownIntercoolTemperature)
         delete (input.compressor as { intercoolTemperatureK?: number }).intercoolTemperatureK;
       nominalHeatRate.set(key, figuresOf(input)?.heatRate ?? null);

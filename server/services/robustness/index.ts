@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import { setMaxListeners } from 'node:events';
 import { availableParallelism } from 'node:os';
 import path from 'node:path';
 
@@ -84,7 +85,7 @@ type Inputs = {
 };
 
 /** Everything a run needs from the database, and the fingerprint of it. */
-async function gatherInputs(db: Database, reviewId: string): Promise<Inputs> {
+export async function gatherInputs(db: Database, reviewId: string): Promise<Inputs> {
   const [basisRow, candidates, marks, profileRows] = await Promise.all([
     readBasis(db, reviewId),
     listCandidates(db, reviewId),
@@ -228,6 +229,8 @@ async function execute(
   uncertainty: Uncertainty,
 ) {
   const controller = new AbortController();
+  // One listener per chunk in the pool's queue.
+  setMaxListeners(200, controller.signal);
   running.set(runId, controller);
   const parts: DrawPartial[] = [];
   let done = 0;
