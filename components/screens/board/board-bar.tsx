@@ -13,7 +13,7 @@ const places: Array<{ key: BoardPlace; label: string; href: (reviewId: string) =
   { key: 'matrix', label: 'Matrix', href: (id) => `/reviews/${encodeURIComponent(id)}/matrix` },
   { key: 'decision', label: 'Decision', href: (id) => `/reviews/${encodeURIComponent(id)}/decision` },
   // The Team's Activity lists every Review's changes, this one's among them.
-  { key: 'activity', label: 'Activity', href: () => '/activity' },
+  { key: 'activity', label: 'Activity', href: (id) => `/reviews/${encodeURIComponent(id)}/activity` },
 ];
 
 /**

@@ -222,6 +222,13 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
             testID="design-basis-open"
           />
           <Button
+            label="Site year"
+            variant="quiet"
+            small
+            onPress={() => router.push(`/reviews/${encodeURIComponent(reviewId)}/site-year`)}
+            testID="site-year-open"
+          />
+          <Button
             label="Review details"
             variant={details ? 'secondary' : 'quiet'}
             small
