@@ -9,7 +9,6 @@ import { useTheme } from '@/components/ui/theme';
 import { space } from '@/components/ui/tokens';
 import type { CandidateWire } from '@/server/contracts/board';
 import type { DecisionRevision, DecisionSnapshot } from '@/server/contracts/decision';
-import { matrixFigureDefs } from '@/server/contracts/matrix';
 
 function Section({ title, children, testID }: { title: string; children: ReactNode; testID?: string }) {
   return (
@@ -144,7 +143,7 @@ function SnapshotFigures({ snapshot, chosenId }: { snapshot: DecisionSnapshot; c
                   const v = f.values[c.id];
                   return (
                     <Text key={f.key} size="small" mono style={styles.td}>
-                      {typeof v === 'number' ? formatNumber(v * (matrixFigureDefs[f.key]?.scale ?? 1)) : '—'}
+                      {typeof v === 'number' ? formatNumber(v) : '—'}
                     </Text>
                   );
                 })}

@@ -4,7 +4,7 @@ import PDFDocument from 'pdfkit';
 import type { Database } from '@/db/client';
 import type { CandidateWire } from '@/server/contracts/board';
 import type { DecisionRevision, DecisionSnapshot } from '@/server/contracts/decision';
-import { exportCaution, matrixFigureDefs, type Matrix, type MatrixCell } from '@/server/contracts/matrix';
+import { exportCaution, type Matrix, type MatrixCell } from '@/server/contracts/matrix';
 import type { Listener } from '@/server/contracts/news';
 
 import { getDecision, getRevision, takeSnapshot } from '../decision';
@@ -30,15 +30,19 @@ const footerSpace = 44;
 
 type Doc = PDFKit.PDFDocument;
 
-/** The mono face's word space has no outline data the font reader accepts; an en space looks the same. */
-const monoSafe = (text: string) => text.replace(/ /g, '\u2002');
+/**
+ * The mono face here has no usable word space or thin space (the font reader refuses the one,
+ * the other has no outline): a cell goes in the mono face only when it is a bare figure.
+ */
+const monoFits = (text: string) => /^[0-9.,%()\-\u2212\u2013]+$/.test(text);
 
 /** 3–4 significant figures with a thin grouping space, as on the screens. */
 function fig(value: unknown, significant = 4): string {
   if (typeof value !== 'number' || !Number.isFinite(value)) return '—';
   const rounded = Number(value.toPrecision(significant));
   const [int, frac] = String(Math.abs(rounded) >= 1e21 ? rounded.toExponential() : rounded).split('.');
-  const grouped = int!.replace(/\B(?=(\d{3})+(?!\d))/g, '\u2009');
+  const digits = int!.replace('-', '');
+  const grouped = digits.length > 4 ? int!.replace(/\B(?=(\d{3})+(?!\d))/g, '\u2009') : int!;
   return frac ? `${grouped}.${frac}` : grouped;
 }
 
@@ -94,8 +98,8 @@ class Writer {
     const cols = head.length - 1;
     const colWidth = cols > 0 ? (this.width - firstWidth) / cols : 0;
     const line = (cells: string[], bold: boolean) => {
-      const mono = (i: number) => numbers && i > 0 && !bold;
-      cells = cells.map((cell, i) => (mono(i) ? monoSafe(cell) : cell));
+      const mono = (i: number) => numbers && i > 0 && !bold && monoFits(cells[i]!);
+      const align = (i: number) => (numbers && i > 0 ? 'right' : 'left');
       const heights = cells.map((cell, i) =>
         this.doc
           .font(bold ? 'SansBold' : mono(i) ? 'Mono' : 'Sans')
@@ -113,7 +117,7 @@ class Writer {
           .fillColor(ink)
           .text(cell, x + 3, y + 3, {
             width: (i === 0 ? firstWidth : colWidth) - 6,
-            align: i === 0 ? 'left' : 'right',
+            align: align(i),
           });
       });
       this.doc
@@ -206,10 +210,13 @@ function drawOverlay(w: Writer, candidates: CandidateWire[]) {
   doc.y = ly + 18;
 }
 
+/** A rule as one sentence, ending in one full stop. */
+const sentence = (s: string) => `${s.trim().replace(/\.+$/, '')}.`;
+
 /** A cell as text: the mean (lowest–highest, how many scored); a missing score is said, never zero. */
 function cellText(cell: MatrixCell | undefined): string {
   if (!cell || cell.value === null) return 'not scored';
-  if (cell.mean === null) return `${fig(cell.value, 3)} (pre-score)`;
+  if (cell.mean === null || cell.count === 0) return `${fig(cell.value, 3)} (pre-score)`;
   const spread =
     cell.min !== null && cell.max !== null ? ` (${fig(cell.min, 2)}–${fig(cell.max, 2)}, ${cell.count})` : '';
   return `${fig(cell.mean, 3)}${spread}`;
@@ -221,12 +228,11 @@ function drawMatrix(w: Writer, matrix: Matrix, candidates: CandidateWire[]) {
   w.table(
     ['Engine figure', ...candidates.map((c) => c.name)],
     matrix.figures.map((f) => {
-      const scale = matrixFigureDefs[f.key]?.scale ?? 1;
       return [
         `${f.label}, ${f.unit}`,
         ...candidates.map((c) => {
           const v = f.values[c.id];
-          return typeof v === 'number' ? fig(v * scale) : '—';
+          return typeof v === 'number' ? fig(v) : '—';
         }),
       ];
     }),
@@ -256,10 +262,13 @@ function drawMatrix(w: Writer, matrix: Matrix, candidates: CandidateWire[]) {
     }),
   ]);
   w.table(head, rows, 150);
-  w.para(`Cells: mean score 1–5 (lowest–highest, how many scored). ${matrix.rules.preScore}. ${matrix.rules.total}`, {
-    size: 7.5,
-    colour: muted,
-  });
+  w.para(
+    `Cells: mean score 1–5 (lowest–highest, how many scored). ${sentence(matrix.rules.preScore)} ${sentence(matrix.rules.total)}`,
+    {
+      size: 7.5,
+      colour: muted,
+    },
+  );
 }
 
 type PdfData = {
@@ -344,6 +353,8 @@ export function drawDecisionPdf({ reviewName, revision, snapshot }: PdfData): Pr
     false,
   );
 
+  // The chart's heading goes with it onto the next page when it does not fit.
+  w.room(340);
   w.heading('T-s diagram of the candidates');
   drawOverlay(w, candidates);
 
