@@ -110,6 +110,11 @@ describe('the decision record as PDF', () => {
     expect(pdf.text).toContain('Specific entropy s, kJ/(kg·K)');
     expect(pdf.text).toContain('Temperature T, K');
     expect(pdf.text).toContain('Thermal efficiency, %');
+    // Each candidate's efficiency as the engine gave it, in per cent to 4 significant figures.
+    for (const c of cands) {
+      const percent = String(Number(((c.results!.thermalEfficiency as number) * 100).toPrecision(4)));
+      expect(pdf.text).toContain(percent);
+    }
     expect(pdf.text).toContain('Weighted total');
     // The T-s overlay is vector: each candidate's colour strokes paths in the content.
     for (const c of cands) expect(pdf.strokeColours).toContain(rgb(c.colour));

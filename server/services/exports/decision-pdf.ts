@@ -334,6 +334,14 @@ export function drawDecisionPdf({ reviewName, revision, snapshot }: PdfData): Pr
   w.heading('Assumptions');
   w.para(revision.assumptions || '—');
 
+  // The chart's heading goes with it onto the next page when it does not fit.
+  w.room(340);
+  w.heading('T-s diagram of the candidates');
+  drawOverlay(w, candidates);
+
+  w.heading(signed ? 'Comparison matrix (as signed)' : 'Comparison matrix (live)');
+  drawMatrix(w, snapshot.matrix, candidates);
+
   const basis = snapshot.designBasis;
   w.heading('Design basis');
   w.table(
@@ -352,14 +360,6 @@ export function drawDecisionPdf({ reviewName, revision, snapshot }: PdfData): Pr
     200,
     false,
   );
-
-  // The chart's heading goes with it onto the next page when it does not fit.
-  w.room(340);
-  w.heading('T-s diagram of the candidates');
-  drawOverlay(w, candidates);
-
-  w.heading(signed ? 'Comparison matrix (as signed)' : 'Comparison matrix (live)');
-  drawMatrix(w, snapshot.matrix, candidates);
 
   const closed = snapshot.rounds.filter((r) => r.tally);
   if (closed.length > 0) {
