@@ -61,6 +61,8 @@ function patchScores(qc: QueryClient, reviewId: string, changed: ScoreChanged['s
 function patchMatrix(qc: QueryClient, reviewId: string, news: ScoreChanged) {
   qc.setQueryData<Matrix>(scoreKeys.matrix(reviewId), (m) => {
     if (!m) return m;
+    // News that overtook a newer read (two changes at once) would put older totals back.
+    if (news.madeAt < m.madeAt) return m;
     const rows = m.rows.map((row) => {
       const cells = news.cells.filter((c) => c.criterionId === row.criterionId);
       if (cells.length === 0) return row;

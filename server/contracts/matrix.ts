@@ -173,5 +173,7 @@ export const scoreChangedSchema = z.object({
   ranks: byCandidate(z.number().nullable()),
   scorers: z.number(),
   refetch: z.boolean(),
+  /** When the matrix these numbers come from was read; a client keeps the newer of two. */
+  madeAt: z.string(),
 });
 export type ScoreChanged = z.infer<typeof scoreChangedSchema>;

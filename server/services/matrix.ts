@@ -229,6 +229,8 @@ export async function marksOf(db: Reader, reviewId: string): Promise<Mark[]> {
  * who the rounds are read for.
  */
 export async function matrixOf(db: Database, reviewId: string, viewerId: string): Promise<Matrix> {
+  // Stamped before the reads: of two matrices, the later stamp saw every change the earlier did.
+  const madeAt = new Date();
   const [review, basisRow, candidates, scores, rounds] = await Promise.all([
     getReview(db, reviewId),
     readBasis(db, reviewId),
@@ -237,13 +239,16 @@ export async function matrixOf(db: Database, reviewId: string, viewerId: string)
     listRounds(db, reviewId, { userId: viewerId, role: 'observer' }),
   ]);
   const basis = toDesignBasis(basisRow, review.createdAt);
-  return buildMatrix({
-    reviewId,
-    reviewName: review.name,
-    basisRevision: basis.revision,
-    criteria: basis.criteria,
-    candidates,
-    scores,
-    rounds,
-  });
+  return buildMatrix(
+    {
+      reviewId,
+      reviewName: review.name,
+      basisRevision: basis.revision,
+      criteria: basis.criteria,
+      candidates,
+      scores,
+      rounds,
+    },
+    madeAt,
+  );
 }

@@ -174,6 +174,7 @@ export async function putScores(
     ranks: matrix.ranks,
     scorers: matrix.scorers,
     refetch: scorersBefore !== scorersAfter,
+    madeAt: matrix.madeAt,
   };
   broadcast.toReview(reviewId, 'score:changed', payload);
   const inBasis = new Set(matrix.criteria.map((c) => c.id));
