@@ -32,6 +32,15 @@ const valuesOf = (r: DecisionRevision): Values => ({
   actions: r.actions.map((x) => ({ ...x })),
 });
 
+/** The values as the server stores them: every text trimmed. */
+function trimmed(v: unknown): unknown {
+  if (typeof v === 'string') return v.trim();
+  if (Array.isArray(v)) return v.map(trimmed);
+  if (v && typeof v === 'object') return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, trimmed(x)]));
+  return v;
+}
+const sameText = (a: Values, b: Values) => JSON.stringify(trimmed(a)) === JSON.stringify(trimmed(b));
+
 const fieldNames = ['chosenCandidateId', 'rationale', 'assumptions', 'rejected', 'dissent', 'actions'] as const;
 
 /** How long typing may pause before the draft is saved by itself. */
@@ -75,8 +84,9 @@ export function DecisionForm({
   useEffect(() => {
     if (draft.updatedAt === seen.current) return;
     seen.current = draft.updatedAt;
-    if (!isDirty) reset(valuesOf(draft));
-  }, [draft, isDirty, reset]);
+    // Our own save coming back differs only by the trimming: keep what is typed (a trailing space).
+    if (!isDirty && !sameText(valuesOf(draft), getValues())) reset(valuesOf(draft));
+  }, [draft, isDirty, reset, getValues]);
 
   const submit = handleSubmit(async (input) => {
     try {
