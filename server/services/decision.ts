@@ -296,7 +296,12 @@ export async function signDecision(
   });
   broadcast.toReview(reviewId, 'decision:signed', { reviewId, revision: toNews(done.selected) });
   if (done.chosen && done.chosen.status !== 'chosen') {
-    await updateCandidate({ db, broadcast, actorId }, reviewId, done.chosen.id, { status: 'chosen' });
+    // The signature stands whatever happens here; the mark is a convenience on the board.
+    try {
+      await updateCandidate({ db, broadcast, actorId }, reviewId, done.chosen.id, { status: 'chosen' });
+    } catch (error) {
+      console.error(`[decision] marking candidate ${done.chosen.id} chosen after signing failed:`, error);
+    }
   }
   return { revision: toRevision(done.selected), review: done.review, members: done.members };
 }
