@@ -16,6 +16,7 @@ import { useUnitSystem } from '@/components/ui/unit-system';
 import { roleAllows } from '@/server/contracts/roles';
 
 import { BoardBar } from '../board/board-bar';
+import { RobustnessPanel } from '../robustness/robustness-panel';
 import { DownloadLink } from './download-link';
 import { rowsOf, sortCandidates, type Sort } from './matrix-model';
 import { MatrixTable } from './matrix-table';
@@ -105,6 +106,13 @@ export function MatrixScreen({ reviewId }: { reviewId: string }) {
             {m.basisRevision}
           </Text>
         </View>
+        {board.data ? (
+          <RobustnessPanel
+            reviewId={reviewId}
+            candidates={m.candidates.map((c) => ({ id: c.id, name: c.name, colour: c.colour }))}
+            myRole={board.data.myRole}
+          />
+        ) : null}
       </View>
     );
   }
