@@ -63,6 +63,7 @@ async function main() {
       running
         ? 'Another Cyclemoot process runs on this database: the two share rooms through the Postgres adapter.'
         : 'A second process on this database: PORT=8091 npm start (it shares rooms, data and mail with this one).',
+      `Ports: app ${port}, Postgres ${cluster.port}, mail SMTP ${mail.smtpPort} (mailbox ${new URL(mail.webURL).port})`,
       `Database: postgres on 127.0.0.1:${cluster.port}, data in ${cluster.dataDir}`,
       '',
       `Demo sign-ins (password for all: ${demoPassword})`,

@@ -19,7 +19,9 @@ function isAlive(pid: number) {
 
 /**
  * Once per vitest run: the project's Postgres cluster with a fresh `cyclemoot_test`
- * database (never the demo data), migrated, and a mail fake on free loopback ports.
+ * database (never the demo data), migrated, and a mail fake on free loopback ports. The
+ * cluster is this checkout's own, on 54329 or, when that is taken, a free port
+ * (`ensureCluster`), so a second checkout's run goes beside the first one's.
  */
 export default async function setup(project: TestProject) {
   const cluster = await ensureCluster();
@@ -30,6 +32,8 @@ export default async function setup(project: TestProject) {
   await migrateDatabase(databaseUrl);
   // Free ports each run, so two test runs on one machine never trip over each other.
   mail = await startMailFake({ smtpPort: await freePort(), webPort: await freePort() });
+  // The cluster's port is its own when 54329 was taken (another checkout's cluster, say).
+  console.log(`[test] Postgres on 127.0.0.1:${cluster.port}; mail fake SMTP ${mail.smtpPort}, mailbox ${mail.webURL}`);
   project.provide('databaseUrl', databaseUrl);
   project.provide('runId', runId);
   project.provide('smtpPort', mail.smtpPort);

@@ -1,13 +1,2 @@
-import { createServer, type AddressInfo } from 'node:net';
-
-/** A loopback port nobody listens on right now. */
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const { port } = probe.address() as AddressInfo;
-      probe.close(() => resolve(port));
-    });
-  });
-}
+/** Loopback ports for the test run's own services (the same helpers `npm start` and the cluster use). */
+export { freePort, portIsFree } from '@/server/ops/ports';
