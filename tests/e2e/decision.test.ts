@@ -123,6 +123,13 @@ for (const size of [
       expect(await byTestId(page, 'decision-action-0-due').inputValue()).toBe('2027-02-15');
       expect(await byTestId(page, `decision-chosen-${chosen.id}`).getAttribute('aria-checked')).toBe('true');
 
+      // A Reviewer on the page meanwhile reads the draft, with no edit controls.
+      const watcher = await signedIn(reviewer, size);
+      await watcher.goto(`${server.baseURL}/reviews/${reviewId}/decision`);
+      await byTestId(watcher, 'decision-read-only-note').waitFor();
+      expect(await byTestId(watcher, 'decision-form').count()).toBe(0);
+      await expect.poll(() => byTestId(watcher, 'decision-status').textContent()).toBe('Draft');
+
       await byTestId(page, 'decision-sign').click();
       await byTestId(page, 'decision-sign-confirm').waitFor();
       await byTestId(page, 'decision-sign-confirm-button').click();
@@ -134,6 +141,9 @@ for (const size of [
       expect(await byTestId(page, 'decision-snapshot').textContent()).toContain('Thermal efficiency, %');
       expect(await byTestId(page, 'decision-form').count()).toBe(0);
       expect(await byTestId(page, 'decision-reopen').count()).toBe(1);
+      // The Reviewer's page turns signed by itself (decision:signed), without a reload.
+      await expect.poll(() => byTestId(watcher, 'decision-status').textContent()).toBe('Signed · read-only');
+      expect(await byTestId(watcher, 'decision-signature').textContent()).toContain(lead.name);
       await page.screenshot({ path: path.join(screenshotDir, `decision-signed-${size.name}.png`), fullPage: true });
 
       const [download] = await Promise.all([page.waitForEvent('download'), byTestId(page, 'decision-pdf').click()]);
