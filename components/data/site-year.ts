@@ -1,0 +1,114 @@
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useEffect } from 'react';
+
+import { getRealtimeSocket } from '@/realtime/client';
+import { reviewNews } from '@/realtime/events';
+import type { SiteYear, SiteYearSummary } from '@/server/contracts/site-year';
+
+import { activityKeys } from './activity';
+import { api } from './api';
+import { apiErrorFromBody, networkError } from './api-error';
+import { apiOrigin } from './origin';
+import { STALE } from './stale-times';
+
+const r = (reviewId: string) => encodeURIComponent(reviewId);
+
+export const siteYearKeys = {
+  year: (reviewId: string) => ['site-year', reviewId] as const,
+};
+
+/** GET /api/reviews/:reviewId/site-year — refetched when the room hears a change (useSiteYearLiveUpdates). */
+export function useSiteYearQuery(reviewId: string | undefined) {
+  return useQuery({
+    queryKey: siteYearKeys.year(reviewId ?? ''),
+    queryFn: ({ signal }) => api.get<SiteYear>(`/api/reviews/${r(reviewId!)}/site-year`, signal),
+    staleTime: STALE.seconds.thirty,
+    enabled: !!reviewId,
+  });
+}
+
+/** A file the web file picker gave, or anything FormData takes. */
+export type ProfileFile = Blob & { name?: string };
+
+/** PUT the profile as multipart (field `file`); errors come back as the one ApiError (row errors in fieldErrors.file). */
+export async function uploadSiteYear(reviewId: string, file: ProfileFile): Promise<SiteYearSummary> {
+  const form = new FormData();
+  form.append('file', file, file.name ?? 'site-year.csv');
+  let response: Response;
+  try {
+    response = await fetch(`${apiOrigin()}/api/reviews/${r(reviewId)}/site-year`, {
+      method: 'PUT',
+      credentials: 'include',
+      headers: { accept: 'application/json' },
+      body: form,
+    });
+  } catch {
+    throw networkError();
+  }
+  const text = await response.text();
+  let parsed: unknown;
+  try {
+    parsed = text ? JSON.parse(text) : null;
+  } catch {
+    parsed = null;
+  }
+  if (!response.ok) throw apiErrorFromBody(response.status, parsed);
+  return parsed as SiteYearSummary;
+}
+
+export function useUploadSiteYear(reviewId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (file: ProfileFile) => uploadSiteYear(reviewId, file),
+    onSuccess: () => {
+      void qc.invalidateQueries({ queryKey: siteYearKeys.year(reviewId) });
+      void qc.invalidateQueries({ queryKey: activityKeys.all });
+    },
+  });
+}
+
+export function useDeleteSiteYear(reviewId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api.delete<void>(`/api/reviews/${r(reviewId)}/site-year`),
+    onSuccess: () => {
+      void qc.invalidateQueries({ queryKey: siteYearKeys.year(reviewId) });
+      void qc.invalidateQueries({ queryKey: activityKeys.all });
+    },
+  });
+}
+
+/** The events after which a review's site year reads differently: a new profile, a changed basis or candidate. */
+const refetchOn = ['site-year:updated', 'basis:updated', 'candidate:added', 'candidate:recomputed'] as const;
+
+/**
+ * Listens on the review's room (joined by useReviewLiveUpdates, which the screen also calls)
+ * and refetches the site year when it changed; each payload is checked with its contract
+ * schema first. On a reconnect it refetches once.
+ */
+export function useSiteYearLiveUpdates(reviewId: string | undefined) {
+  const qc = useQueryClient();
+  useEffect(() => {
+    if (!reviewId) return;
+    const socket = getRealtimeSocket(apiOrigin());
+    const refetch = () => void qc.invalidateQueries({ queryKey: siteYearKeys.year(reviewId) });
+    const listeners = refetchOn.map((event) => {
+      const listener = (raw: unknown) => {
+        const parsed = reviewNews[event].safeParse(raw);
+        if (!parsed.success) {
+          console.warn(`[live] dropped a ${event} that does not match the contract`);
+          return;
+        }
+        if (event === 'site-year:updated' && (parsed.data as { reviewId: string }).reviewId !== reviewId) return;
+        refetch();
+      };
+      socket.on(event as never, listener as never);
+      return () => socket.off(event as never, listener as never);
+    });
+    socket.on('connect', refetch);
+    return () => {
+      for (const off of listeners) off();
+      socket.off('connect', refetch);
+    };
+  }, [reviewId, qc]);
+}
