@@ -27,11 +27,13 @@ type Pdf = {
   bytes: Buffer;
   strokeColours: Set<string>;
   paths: number;
+  ms: number;
   res: { headers: Record<string, string> };
 };
 
 /** Downloads the PDF as `who` and reads it back with pdf.js: page count and the text of every page. */
 async function download(who: TestUser, query = ''): Promise<Pdf> {
+  const started = performance.now();
   const res = await who.agent
     .get(`/api/reviews/${t.reviewId}/decision.pdf${query}`)
     .buffer(true)
@@ -41,6 +43,7 @@ async function download(who: TestUser, query = ''): Promise<Pdf> {
       response.on('end', () => done(null, Buffer.concat(chunks)));
     });
   expect(res.status, String(res.body)).toBe(200);
+  const ms = Math.round(performance.now() - started);
   const bytes = res.body as Buffer;
   const doc = await getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, isEvalSupported: false }).promise;
   let text = '';
@@ -58,7 +61,7 @@ async function download(who: TestUser, query = ''): Promise<Pdf> {
   }
   const pages = doc.numPages;
   await doc.destroy();
-  return { pages, text: text.replace(/\s+/g, ' '), bytes, strokeColours, paths, res: res as unknown as Pdf['res'] };
+  return { pages, text: text.replace(/\s+/g, ' '), bytes, strokeColours, paths, ms, res: res as unknown as Pdf['res'] };
 }
 
 /** '#E69F00' as pdf.js reports a stroke colour: '230,159,0'. */
@@ -89,6 +92,9 @@ describe('the decision record as PDF', () => {
     const signedAt = decision.current.signedAt as string;
     const draft = completeDraft(cands[1]!, cands[0]!);
     const pdf = await download(t.engineer);
+    console.log(
+      `[decision-pdf] signed record: ${pdf.pages} pages, ${pdf.bytes.length} bytes, answered in ${pdf.ms} ms`,
+    );
     expect(pdf.res.headers['content-disposition']).toMatch(/-r1\.pdf"$/);
     // Kept for a person to look at (artifacts/ is not in git).
     mkdirSync(path.resolve('artifacts'), { recursive: true });

@@ -97,7 +97,7 @@ class Writer {
   table(head: string[], rows: string[][], firstWidth = 170, numbers = true) {
     const cols = head.length - 1;
     const colWidth = cols > 0 ? (this.width - firstWidth) / cols : 0;
-    const line = (cells: string[], bold: boolean) => {
+    const line = (cells: string[], bold: boolean): void => {
       const mono = (i: number) => numbers && i > 0 && !bold && monoFits(cells[i]!);
       const align = (i: number) => (numbers && i > 0 ? 'right' : 'left');
       const heights = cells.map((cell, i) =>
@@ -107,6 +107,11 @@ class Writer {
           .heightOfString(cell, { width: (i === 0 ? firstWidth : colWidth) - 6 }),
       );
       const h = Math.max(...heights) + 6;
+      // A table carried onto a new page starts again with its header row.
+      if (!bold && this.doc.y + h > this.bottom) {
+        this.doc.addPage();
+        line(head, true);
+      }
       this.room(h);
       const y = this.doc.y;
       cells.forEach((cell, i) => {
