@@ -2,6 +2,8 @@ import { z } from 'zod';
 
 import { candidateSchema, designBasisSchema, roundSchema } from './board';
 import { matrixSchema } from './matrix';
+import { robustnessSchema } from './robustness';
+import { siteYearSchema } from './site-year';
 import { plainText } from './text';
 
 /**
@@ -135,6 +137,9 @@ export const decisionSnapshotSchema = z.object({
   scores: z.array(snapshotScoreSchema),
   matrix: matrixSchema,
   rounds: z.array(roundSchema),
+  /** How sure: the latest finished robustness run (with whether it was out of date), and the site year. Absent in records signed before they existed. */
+  robustness: robustnessSchema.nullable().optional(),
+  siteYear: siteYearSchema.nullable().optional(),
 });
 export type DecisionSnapshot = z.infer<typeof decisionSnapshotSchema>;
 

@@ -20,7 +20,9 @@ import { listCandidates, updateCandidate } from './candidates';
 import { readBasis, toDesignBasis } from './design-basis';
 import { matrixOf } from './matrix';
 import { getReview, reviewOf } from './reviews';
+import { getRobustness } from './robustness';
 import { listRounds } from './rounds';
+import { getSiteYear } from './site-year';
 
 export type DecisionContext = { db: Database; broadcast: Broadcast; actorId: string };
 
@@ -200,7 +202,7 @@ export async function updateDecision(
  * preference rounds with their tallies. Stored as data, so later board edits do not touch it.
  */
 export async function takeSnapshot(db: Database, reviewId: string, viewer: Listener): Promise<DecisionSnapshot> {
-  const [review, basisRow, candidates, scores, matrix, rounds] = await Promise.all([
+  const [review, basisRow, candidates, scores, matrix, rounds, robustness, siteYear] = await Promise.all([
     getReview(db, reviewId),
     readBasis(db, reviewId),
     listCandidates(db, reviewId),
@@ -219,6 +221,8 @@ export async function takeSnapshot(db: Database, reviewId: string, viewer: Liste
       .orderBy(asc(score.candidateId), asc(score.criterionId), asc(user.name)),
     matrixOf(db, reviewId, viewer.userId),
     listRounds(db, reviewId, viewer),
+    getRobustness(db, reviewId),
+    getSiteYear(db, reviewId),
   ]);
   return {
     takenAt: new Date().toISOString(),
@@ -228,6 +232,9 @@ export async function takeSnapshot(db: Database, reviewId: string, viewer: Liste
     matrix,
     // A blind round still open has no tally to keep; the rest are kept as the signer saw them.
     rounds: rounds.map((r) => ({ ...r, myBallot: null })),
+    // Only a finished run says how sure; its `stale` tells whether the board moved on since.
+    robustness: robustness.status === 'done' ? robustness : null,
+    siteYear,
   };
 }
 

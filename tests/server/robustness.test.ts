@@ -1,3 +1,4 @@
+import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { evaluateRequestSchema } from '@/server/contracts/cycle';
@@ -226,6 +227,50 @@ describe('the robustness routes', () => {
     expect(r.firstPlace).toBeNull();
     // Cancelled: nothing to cancel any more.
     expect((await t.lead.agent.delete(`${url()}/${first.body.runId}`)).status).toBe(409);
+  });
+
+  it('a signed decision keeps the run it rested on, and its PDF says how sure', async () => {
+    const res = await t.lead.agent.post(url()).send({ samples: 500, seed: 5 });
+    expect(res.status).toBe(202);
+    await until(async () => (await read()).status === 'done' && (await read()).runId === res.body.runId);
+    const run = await read();
+    const chosen = Object.entries(run.firstPlace!).sort((a, b) => b[1] - a[1])[0]![0];
+    await t.lead.agent
+      .put(`/api/reviews/${t.reviewId}/decision`)
+      .send({ chosenCandidateId: chosen, rationale: 'Ranks first most often in the robustness check.' })
+      .expect(200);
+    await t.lead.agent.post(`/api/reviews/${t.reviewId}/decision/sign`).send({}).expect(200);
+    const decision = (await t.lead.agent.get(`/api/reviews/${t.reviewId}/decision`)).body;
+    expect(decision.current.snapshot.robustness.runId).toBe(run.runId);
+    expect(decision.current.snapshot.robustness.firstPlace).toEqual(run.firstPlace);
+    expect(decision.current.snapshot.siteYear.candidates).toHaveLength(t.candidates.length);
+
+    const pdf = await t.lead.agent
+      .get(`/api/reviews/${t.reviewId}/decision.pdf`)
+      .buffer(true)
+      .parse((response, done) => {
+        const chunks: Buffer[] = [];
+        response.on('data', (c: Buffer) => chunks.push(c));
+        response.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(pdf.status).toBe(200);
+    const doc = await getDocument({
+      data: new Uint8Array(pdf.body as Buffer),
+      useSystemFonts: false,
+      isEvalSupported: false,
+    }).promise;
+    let text = '';
+    for (let i = 1; i <= doc.numPages; i++)
+      text += (await (await doc.getPage(i)).getTextContent()).items.map((x) => ('str' in x ? x.str : '')).join(' ');
+    expect(text).toContain('How sure is the ranking');
+    expect(text).toContain('500 draws, seed 5');
+    expect(text).toContain('Ranks first');
+    expect(text).toContain('Site year');
+    // A later run does not change the signed record.
+    await t.lead.agent.post(url()).send({ samples: 50, seed: 6 }).expect(202);
+    await until(async () => (await read()).seed === 6 && (await read()).status === 'done');
+    const again = (await t.lead.agent.get(`/api/reviews/${t.reviewId}/decision`)).body;
+    expect(again.current.snapshot.robustness.seed).toBe(5);
   });
 
   it('refuses bad samples and seeds by field, and changes nothing', async () => {

@@ -284,6 +284,61 @@ type PdfData = {
 };
 
 /** Draws the decision record on A4 and resolves with the bytes. */
+/**
+ * "How sure": the site year (hot and cold days, the year's figures) and the robustness run
+ * (how often each candidate ranks first, its 5–95 % bands), as the snapshot keeps them.
+ */
+function drawHowSure(w: Writer, snapshot: DecisionSnapshot, candidates: CandidateWire[]) {
+  const year = snapshot.siteYear;
+  if (year) {
+    w.heading('Site year');
+    w.para(
+      (year.profile
+        ? `Hourly profile of ${fig(year.profile.hours)} h (${fig(year.profile.minK - 273.15, 3)} to ${fig(year.profile.maxK - 273.15, 3)} °C), `
+        : 'No hourly profile: rating curve only, ') +
+        `${fig(year.firedHoursPerYear)} fired hours a year. A fixed machine sized at the basis ambient (same inlet volume flow, design pressure ratio and temperatures): a first-order estimate without component maps, for comparing candidates.`,
+      { size: 8.5 },
+    );
+    const of = (id: string) => year.candidates.find((y) => y.candidateId === id);
+    w.table(
+      ['Figure', ...candidates.map((c) => c.name)],
+      [
+        ['Hot-day capacity, kW', ...candidates.map((c) => fig(of(c.id)?.hotDayKW))],
+        ['Cold-day capacity, kW', ...candidates.map((c) => fig(of(c.id)?.coldDayKW))],
+        ['Energy a year, MWh', ...candidates.map((c) => fig(of(c.id)?.annual?.energyMWh))],
+        ['Fuel a year, t', ...candidates.map((c) => fig(of(c.id)?.annual?.fuelTonnes))],
+        ['CO2 a year, t', ...candidates.map((c) => fig(of(c.id)?.annual?.co2Tonnes))],
+        ['Mean heat rate, kJ/kWh', ...candidates.map((c) => fig(of(c.id)?.annual?.meanHeatRateKJPerKWh))],
+        ['Fired hours short of the required power, h', ...candidates.map((c) => fig(of(c.id)?.annual?.shortfallHours))],
+      ],
+    );
+  }
+  const run = snapshot.robustness;
+  w.heading('How sure is the ranking');
+  if (!run || !run.firstPlace) {
+    w.para('No robustness check had finished when this record was made.', { size: 9 });
+    return;
+  }
+  w.para(
+    `${fig(run.samples)} draws, seed ${run.seed}${run.stale ? ' — out of date: the board changed after this run' : ''}. ${run.method}`,
+    { size: 8.5 },
+  );
+  const band = (b: { p5: number; p95: number } | null | undefined, scale = 1, digits = 3) =>
+    b ? `${fig(b.p5 * scale, digits)}–${fig(b.p95 * scale, digits)}` : '—';
+  w.table(
+    ['Figure', ...candidates.map((c) => c.name)],
+    [
+      [
+        'Ranks first',
+        ...candidates.map((c) => (run.firstPlace![c.id] === undefined ? '—' : pct(run.firstPlace![c.id]))),
+      ],
+      ['Efficiency 5–95 %, %', ...candidates.map((c) => band(run.bands?.[c.id]?.thermalEfficiency, 100))],
+      ['Net specific work 5–95 %, kJ/kg', ...candidates.map((c) => band(run.bands?.[c.id]?.netWorkKJPerKg, 1, 4))],
+      ['Fuel a year 5–95 %, t', ...candidates.map((c) => band(run.bands?.[c.id]?.annualFuelTonnes, 1, 4))],
+    ],
+  );
+}
+
 export function drawDecisionPdf({ reviewName, revision, snapshot }: PdfData): Promise<Buffer> {
   const doc = new PDFDocument({
     size: 'A4',
@@ -346,6 +401,8 @@ export function drawDecisionPdf({ reviewName, revision, snapshot }: PdfData): Pr
 
   w.heading(signed ? 'Comparison matrix (as signed)' : 'Comparison matrix (live)');
   drawMatrix(w, snapshot.matrix, candidates);
+
+  drawHowSure(w, snapshot, candidates);
 
   const basis = snapshot.designBasis;
   w.heading('Design basis');
