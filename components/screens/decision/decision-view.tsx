@@ -164,7 +164,39 @@ function SnapshotFigures({ snapshot, chosenId }: { snapshot: DecisionSnapshot; c
         {snapshot.scores.length} scores from {matrix.scorers} {matrix.scorers === 1 ? 'person' : 'people'};{' '}
         {snapshot.rounds.filter((r) => r.status === 'closed').length} closed preference rounds.
       </Text>
+      <HowSure snapshot={snapshot} />
     </Section>
+  );
+}
+
+/** How sure the signed ranking was: the robustness run it rested on, if one had finished. */
+function HowSure({ snapshot }: { snapshot: DecisionSnapshot }) {
+  const run = snapshot.robustness;
+  if (!run?.firstPlace)
+    return (
+      <Text size="small" tone="muted" testID="decision-how-sure">
+        No robustness check had finished when this was signed.
+      </Text>
+    );
+  const names = new Map(snapshot.candidates.map((c) => [c.id, c.name]));
+  const order = Object.entries(run.firstPlace).sort((a, b) => b[1] - a[1]);
+  return (
+    <View style={styles.section} testID="decision-how-sure">
+      <Text weight="semibold">How sure, as signed</Text>
+      {order.map(([id, p]) => (
+        <Text key={id} size="small">
+          {names.get(id) ?? 'A removed candidate'} ranks first in{' '}
+          <Text size="small" weight="semibold">
+            {Math.round(p * 100)} %
+          </Text>{' '}
+          of {run.samples?.toLocaleString('en')} draws
+        </Text>
+      ))}
+      <Text size="caption" tone="muted">
+        Seed {run.seed}
+        {run.stale ? '; the board had changed since the run' : ''}.
+      </Text>
+    </View>
   );
 }
 
