@@ -27,7 +27,7 @@ export type FileStorage = {
  * optionally `CYCLEMOOT_S3_REGION` (us-east-1) and `CYCLEMOOT_S3_PATH_STYLE` (true); anything
  * else (unset, `postgres`) keeps the bytes in the product's own database.
  */
-export function storageFromEnv(db: Database, env: NodeJS.ProcessEnv = process.env): FileStorage {
+export function storageFromEnv(db: Database, env: Record<string, string | undefined> = process.env): FileStorage {
   const chosen = (env.CYCLEMOOT_STORAGE ?? 'postgres').trim().toLowerCase();
   if (chosen === 'postgres' || chosen === '') return postgresStorage(db);
   if (chosen !== 's3') throw new Error(`CYCLEMOOT_STORAGE must be postgres or s3, not "${env.CYCLEMOOT_STORAGE}".`);

@@ -5,10 +5,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { activity, fileBlob, review, storedFile } from '@/db/schema';
 import { createApp } from '@/server/app';
 import type { Broadcast } from '@/server/services/broadcast';
-import { postgresStorage, readAll, s3Storage, type FileStorage } from '@/server/storage';
+import { postgresStorage, readAll, s3Storage, storageFromEnv, type FileStorage } from '@/server/storage';
 
 import { createTestApp, testOrigin, type Sent, type TestUser } from '../helpers/api';
 import { startS3Fake, type S3Fake } from '../helpers/s3-fake';
+import { startTestServer } from '../helpers/test-server';
 import { discussionTeam, type DiscussionTeam } from './fixtures/discussion';
 import { csvBytes, jpegBytes, pdfBytes, pngBytes, xlsxBytes } from './fixtures/files';
 
@@ -227,5 +228,53 @@ describe('the stored name', () => {
     const long = sanitiseFileName(`${'x'.repeat(300)}.xlsx`);
     expect(long).toHaveLength(200);
     expect(long.endsWith('.xlsx')).toBe(true);
+  });
+});
+
+describe('choosing the driver', () => {
+  it('keeps bytes in Postgres unless CYCLEMOOT_STORAGE=s3 names a complete bucket', () => {
+    expect(storageFromEnv(ctx.db, {}).driver).toBe('postgres');
+    expect(storageFromEnv(ctx.db, { CYCLEMOOT_STORAGE: 'postgres' }).driver).toBe('postgres');
+    expect(() => storageFromEnv(ctx.db, { CYCLEMOOT_STORAGE: 'ftp' })).toThrow(/postgres or s3/);
+    expect(() => storageFromEnv(ctx.db, { CYCLEMOOT_STORAGE: 's3', CYCLEMOOT_S3_ENDPOINT: 'http://x' })).toThrow(
+      /CYCLEMOOT_S3_BUCKET/,
+    );
+    const env = {
+      CYCLEMOOT_STORAGE: 's3',
+      CYCLEMOOT_S3_ENDPOINT: s3.settings.endpoint,
+      CYCLEMOOT_S3_BUCKET: s3.settings.bucket,
+      CYCLEMOOT_S3_ACCESS_KEY_ID: s3.settings.accessKeyId,
+      CYCLEMOOT_S3_SECRET_ACCESS_KEY: s3.settings.secretAccessKey,
+    };
+    expect(storageFromEnv(ctx.db, env).driver).toBe('s3');
+  });
+
+  it('a running server set to S3 by the environment stores there; a server on the other driver answers 503 for it', async () => {
+    const saved = { ...process.env };
+    Object.assign(process.env, {
+      CYCLEMOOT_STORAGE: 's3',
+      CYCLEMOOT_S3_ENDPOINT: s3.settings.endpoint,
+      CYCLEMOOT_S3_BUCKET: s3.settings.bucket,
+      CYCLEMOOT_S3_ACCESS_KEY_ID: s3.settings.accessKeyId,
+      CYCLEMOOT_S3_SECRET_ACCESS_KEY: s3.settings.secretAccessKey,
+    });
+    // No storage given: the server reads the environment, as `npm start` does.
+    const server = await startTestServer({ storage: (db) => storageFromEnv(db) });
+    process.env = saved;
+    try {
+      const res = await supertest(server.baseURL)
+        .post(`/api/reviews/${t.reviewId}/files`)
+        .set('Cookie', t.lead.cookie)
+        .set('Origin', server.baseURL)
+        .attach('file', pdfBytes(), 'from-env.pdf');
+      expect(res.status, JSON.stringify(res.body)).toBe(201);
+      const [row] = await ctx.db.select().from(storedFile).where(eq(storedFile.id, res.body.id));
+      expect(row.driver).toBe('s3');
+      const elsewhere = await supertest(ctx.app).get(`/api/files/${res.body.id}`).set('Cookie', t.lead.cookie);
+      expect(elsewhere.status).toBe(503);
+      expect(elsewhere.body.error.code).toBe('storage_unavailable');
+    } finally {
+      await server.stop();
+    }
   });
 });
