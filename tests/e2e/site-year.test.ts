@@ -143,6 +143,16 @@ describe('the Site year screen', () => {
       await byTestId(page, `rating-curve-${id}`).locator('svg').first().waitFor();
       await byTestId(page, `site-year-candidate-${id}`).locator('[data-testid="site-year-annual"]').waitFor();
     }
+    // Fired hours: checked as typed, saved into the basis, and the year follows.
+    const hours = byTestId(page, 'site-year-fired-hours-input');
+    await hours.fill('9000');
+    expect(await byTestId(page, 'site-year-fired-hours-input-error').textContent()).toMatch(/at most 8784/);
+    await hours.fill('500');
+    await byTestId(page, 'site-year-fired-hours-save').click();
+    await expect.poll(async () => (await stored()).firedHoursPerYear).toBe(500);
+    await expect.poll(() => byTestId(page, 'site-year-fired-hours').textContent()).toMatch(/500\s*h/);
+    const year = (await stored()).candidates[0].annual;
+    expect(year.firedHours).toBe(500);
     const width = await byTestId(page, `rating-curve-${candidateIds[0]}`).evaluate(
       (e) => e.getBoundingClientRect().width,
     );

@@ -25,6 +25,7 @@ import type { CandidateWire } from '@/server/contracts/board';
 import { roleAllows } from '@/server/contracts/roles';
 import type { CandidateYear, SiteYearSummary } from '@/server/contracts/site-year';
 
+import { FiredHoursForm } from './fired-hours-form';
 import { ambient, annualRows, capacity, firstOrderLine, powerCapLine } from './site-year-format';
 
 /** Opens the browser's file picker for one CSV (web only). */
@@ -101,6 +102,7 @@ export function SiteYearScreen({ reviewId }: { reviewId: string }) {
           <Text size="small" tone="soft" testID="site-year-fired-hours">
             Fired hours per year (design basis): <Quantity size="small" value={String(y.firedHoursPerYear)} unit="h" />
           </Text>
+          {canEdit ? <FiredHoursForm key={b.designBasis.revision} reviewId={reviewId} basis={b.designBasis} /> : null}
           {canEdit ? (
             <View style={styles.actions}>
               <Button
