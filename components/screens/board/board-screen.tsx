@@ -4,7 +4,9 @@ import { ScrollView, StyleSheet, View } from 'react-native';
 
 import { gatherRoom, reportViewing, useBoardQuery, usePresence, useReviewLiveUpdates } from '@/components/data/board';
 import { useMeQuery } from '@/components/data/me';
+import { useSiteYearLiveUpdates } from '@/components/data/site-year';
 import { useTeamLiveUpdates } from '@/components/data/team-live-updates';
+import { FilesPanel } from '@/components/screens/files/files-panel';
 import { useCurrentTeam } from '@/components/state/current-team';
 import { BackLink } from '@/components/ui/back-link';
 import { Button } from '@/components/ui/button';
@@ -34,7 +36,7 @@ import { useBoardKeys } from './use-board-keys';
 import { useFollow } from './use-follow';
 
 type View_ = 'cards' | 'overlay';
-type PhoneTab = 'comments' | 'round' | 'here';
+type PhoneTab = 'comments' | 'round' | 'here' | 'files';
 
 /** A gather answer that is not `{ ok: true }` becomes an error for the message line. */
 async function sendGather(reviewId: string, candidateId: string | null) {
@@ -69,6 +71,7 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
 
   // ── Gather the room ───────────────────────────────────────────────────────────────
   useReviewLiveUpdates(reviewId);
+  useSiteYearLiveUpdates(reviewId);
   const data = board.data;
   const candidates = useMemo(() => data?.candidates ?? [], [data?.candidates]);
   const follow = useFollow(reviewId, data, meId);
@@ -336,6 +339,7 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
         <CommentThread key={threadId ?? 'review'} reviewId={reviewId} candidateId={threadId} />
       </View>
     ),
+    files: <FilesPanel reviewId={reviewId} />,
   };
 
   if (wide) {
@@ -379,6 +383,7 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
           <PanelSection title="Who is here">{sections.here}</PanelSection>
           <PanelSection title="Preference round">{sections.round}</PanelSection>
           <PanelSection title="Comments">{sections.comments}</PanelSection>
+          <PanelSection title="Files">{sections.files}</PanelSection>
         </ScrollView>
       </View>
     );
@@ -411,6 +416,7 @@ export function BoardScreen({ reviewId }: { reviewId: string }) {
               { value: 'comments', label: 'Comments' },
               { value: 'round', label: 'Preference round' },
               { value: 'here', label: `Who is here (${presence.data?.length ?? 0})` },
+              { value: 'files', label: 'Files' },
             ]}
             testID="board-tab"
           />

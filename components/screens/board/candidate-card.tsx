@@ -1,5 +1,6 @@
 import { StyleSheet, View } from 'react-native';
 
+import { SiteYearLine } from '@/components/screens/site-year/site-year-line';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { focusRing, type PressState } from '@/components/ui/focus';
@@ -164,6 +165,11 @@ export function CandidateCard({
 
         {candidate.results ? <CardDiagram candidate={candidate} colour={colour} /> : null}
       </PressableLink>
+      {candidate.results ? (
+        <View style={styles.yearLine}>
+          <SiteYearLine reviewId={reviewId} candidateId={id} />
+        </View>
+      ) : null}
 
       <View style={[styles.foot, { borderTopColor: t.hairline }]}>
         <Text size="small" tone="soft" style={styles.tally} testID={`tally-${id}`}>
@@ -214,4 +220,5 @@ const styles = StyleSheet.create({
     paddingVertical: space.half,
   },
   tally: { flex: 1, minWidth: 140, paddingLeft: space.half },
+  yearLine: { paddingHorizontal: space[2], paddingBottom: space[1] },
 });

@@ -17,6 +17,7 @@ import { CommentThread } from '@/components/screens/board/comment-thread';
 import { GatherBanner } from '@/components/screens/board/gather-banner';
 import { useBoardKeys } from '@/components/screens/board/use-board-keys';
 import { useFollow } from '@/components/screens/board/use-follow';
+import { FilesPanel } from '@/components/screens/files/files-panel';
 import { BackLink } from '@/components/ui/back-link';
 import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
@@ -232,6 +233,10 @@ function CandidateBody({
       <Card style={styles.gap}>
         <Heading level={2}>Comments</Heading>
         <CommentThread reviewId={reviewId} candidateId={candidate.id} />
+      </Card>
+      <Card style={styles.gap}>
+        <Heading level={2}>Files of this candidate</Heading>
+        <FilesPanel reviewId={reviewId} candidateId={candidate.id} />
       </Card>
     </Screen>
   );
