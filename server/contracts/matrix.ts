@@ -2,6 +2,7 @@ import { z } from 'zod';
 
 import { candidateStatuses, measuredFigures } from './board';
 import { scoreSchema } from './scores';
+import { siteYearSummarySchema } from './site-year';
 
 /**
  * The comparison matrix of a review: candidates as columns; the engine's key figures, then
@@ -52,6 +53,36 @@ export const matrixFigureDefs: Record<MatrixFigureKey, { label: string; unit: st
   backWorkRatio: { label: 'Back-work ratio', unit: '-', scale: 1 },
 };
 
+/**
+ * The site year's figures the matrix shows per candidate (from GET site-year), SI units as
+ * the exports write them. The year's figures need an hourly profile; the hot and cold days
+ * do not (without one they are +45 °C and −30 °C).
+ */
+export const matrixYearFigureKeys = [
+  'hotDayKW',
+  'coldDayKW',
+  'energyMWh',
+  'fuelTonnes',
+  'co2Tonnes',
+  'meanHeatRateKJPerKWh',
+  'shortfallHours',
+] as const;
+export type MatrixYearFigureKey = (typeof matrixYearFigureKeys)[number];
+
+export const matrixYearFigureDefs: Record<MatrixYearFigureKey, { label: string; unit: string }> = {
+  hotDayKW: { label: 'Hot-day capacity', unit: 'kW' },
+  coldDayKW: { label: 'Cold-day capacity', unit: 'kW' },
+  energyMWh: { label: 'Energy a year', unit: 'MWh' },
+  fuelTonnes: { label: 'Fuel a year', unit: 't' },
+  co2Tonnes: { label: 'CO2 a year', unit: 't' },
+  meanHeatRateKJPerKWh: { label: 'Mean heat rate over the year', unit: 'kJ/kWh' },
+  shortfallHours: { label: 'Fired hours short of the required power', unit: 'h' },
+};
+
+/** What the site year's figures are, said on the screen and in the exports. */
+export const yearRule =
+  'Site year: each candidate as a fixed machine sized at the design basis ambient for the required power (same inlet volume flow, pressure ratio, turbine inlet temperature, efficiencies and losses at every ambient); the year\u2019s figures over the hourly profile at the basis\u2019s fired hours a year (none without a profile): a first-order estimate without component maps, for comparing candidates.';
+
 /** Which end of a measured figure is best: the pre-score's 5. */
 export const measuredBest: Record<(typeof measuredFigures)[number], 'highest' | 'lowest'> = {
   thermalEfficiency: 'highest',
@@ -93,6 +124,27 @@ export const matrixFigureSchema = z.object({
   unit: z.string(),
   values: byCandidate(z.number().nullable()),
 });
+
+export const matrixYearFigureSchema = z.object({
+  key: z.enum(matrixYearFigureKeys),
+  label: z.string(),
+  unit: z.string(),
+  /** Null where the figure is missing: no profile (the year's figures), or an engine refusal. */
+  values: byCandidate(z.number().nullable()),
+});
+
+/** The site year's part of the matrix. */
+export const matrixYearSchema = z.object({
+  /** The stored hourly profile's summary; null without one (then only the hot and cold days). */
+  profile: siteYearSummarySchema.nullable(),
+  firedHoursPerYear: z.number(),
+  /** The ambient of the hot and cold days, K (the profile's hottest and coldest hours, else +45 °C and −30 °C); null when no candidate has a year. */
+  hotDayK: z.number().nullable(),
+  coldDayK: z.number().nullable(),
+  rule: z.string(),
+  figures: z.array(matrixYearFigureSchema),
+});
+export type MatrixYear = z.infer<typeof matrixYearSchema>;
 
 export const matrixCellSchema = z.object({
   /** The value the total uses: the mean of the marks, or the pre-score alone; null when missing. */
@@ -153,6 +205,8 @@ export const matrixSchema = z.object({
   /** How many people have scored anything in the review. */
   scorers: z.number(),
   rules: z.object({ preScore: z.string(), total: z.string() }),
+  /** The site year's figures per candidate. Absent from matrices kept before it existed (signed snapshots). */
+  year: matrixYearSchema.optional(),
   madeAt: z.string(),
 });
 export type Matrix = z.infer<typeof matrixSchema>;

@@ -35,6 +35,17 @@ export function matrixTable(matrix: Matrix): TableRow[] {
       values: ids.map((id) => f.values[id] ?? null),
     });
   }
+  if (matrix.year) {
+    section('Site year (first-order estimate without component maps)');
+    for (const f of matrix.year.figures) {
+      rows.push({
+        label: `${f.label} (${f.unit})`,
+        unit: f.unit,
+        weight: null,
+        values: ids.map((id) => f.values[id] ?? null),
+      });
+    }
+  }
   section('Criteria (scores 1 = worst, 5 = best)');
   matrix.rows.forEach((row, i) => {
     const criterion = matrix.criteria[i]!;
@@ -109,6 +120,22 @@ export function matrixTable(matrix: Matrix): TableRow[] {
   return rows;
 }
 
+const kelvin = (k: number) => `${Number(k.toFixed(2))} K`;
+
+/** The site year's line for the notes on top: what it rests on, or null without a year. */
+export function yearNote(matrix: Matrix): string | null {
+  const y = matrix.year;
+  if (!y) return null;
+  const profile = y.profile
+    ? `hourly profile ${y.profile.fileName} of ${y.profile.hours} h (${kelvin(y.profile.minK)} to ${kelvin(y.profile.maxK)}), ${y.firedHoursPerYear} fired hours a year`
+    : 'no hourly profile: hot and cold days only, the year\u2019s figures are empty';
+  const days =
+    y.hotDayK !== null && y.coldDayK !== null
+      ? `; hot day at ${kelvin(y.hotDayK)}, cold day at ${kelvin(y.coldDayK)}`
+      : '';
+  return `${y.rule} This matrix: ${profile}${days}.`;
+}
+
 function headerOf(matrix: Matrix): string[] {
   return ['Row', 'Unit', 'Weight (%)', ...matrix.candidates.map((c) => c.name)];
 }
@@ -138,6 +165,7 @@ export function matrixCsv(matrix: Matrix): string {
     [exportCaution],
     [matrix.rules.preScore],
     [matrix.rules.total],
+    ...(yearNote(matrix) ? [[yearNote(matrix)]] : []),
     [`Made ${matrix.madeAt} from design basis revision ${matrix.basisRevision}`],
     headerOf(matrix),
     ...matrixTable(matrix)
@@ -197,6 +225,8 @@ export async function matrixXlsx(matrix: Matrix, candidates: CandidateWire[]): P
   note(`Comparison matrix: ${matrix.reviewName}`, true);
   note(matrix.rules.preScore);
   note(matrix.rules.total);
+  const year = yearNote(matrix);
+  if (year) note(year);
   note(`Made ${matrix.madeAt} from design basis revision ${matrix.basisRevision}`);
   const header = sheet.addRow(headerOf(matrix));
   header.font = { bold: true };

@@ -6,18 +6,25 @@ import type { CandidateWire, Criterion, Round } from '@/server/contracts/board';
 import {
   matrixFigureDefs,
   matrixFigureKeys,
+  matrixYearFigureDefs,
+  matrixYearFigureKeys,
   measuredBest,
   totalRule,
+  yearRule,
   type Matrix,
   type MatrixCell,
   type MatrixTotal,
+  type MatrixYear,
+  type MatrixYearFigureKey,
 } from '@/server/contracts/matrix';
 import { preScoreRule, scoreMax, scoreMin } from '@/server/contracts/scores';
+import type { CandidateYear, SiteYear } from '@/server/contracts/site-year';
 
 import { listCandidates } from './candidates';
 import { readBasis, toDesignBasis } from './design-basis';
 import { getReview } from './reviews';
 import { listRounds } from './rounds';
+import { getSiteYear } from './site-year';
 
 /**
  * The comparison matrix: the pure arithmetic (`buildMatrix`, `preScores`) and the one read
@@ -35,6 +42,8 @@ export type MatrixInputs = {
   candidates: Pick<CandidateWire, 'id' | 'name' | 'colour' | 'status' | 'results'>[];
   scores: Mark[];
   rounds: Round[];
+  /** The review's site year (GET site-year); without it the matrix has no `year`. */
+  siteYear?: SiteYear;
 };
 
 /** Values closer than this (relative) count as equal: ties in totals, no spread in a figure. */
@@ -97,6 +106,44 @@ export function rankTotals(totals: Record<string, MatrixTotal>): Record<string, 
       t.total === null ? null : 1 + ranked.filter((other) => other > t.total! && !same(other, t.total!)).length,
     ]),
   );
+}
+
+const yearFigureOf: Record<MatrixYearFigureKey, (y: CandidateYear) => number | null> = {
+  hotDayKW: (y) => y.hotDayKW,
+  coldDayKW: (y) => y.coldDayKW,
+  energyMWh: (y) => y.annual?.energyMWh ?? null,
+  fuelTonnes: (y) => y.annual?.fuelTonnes ?? null,
+  co2Tonnes: (y) => y.annual?.co2Tonnes ?? null,
+  meanHeatRateKJPerKWh: (y) => y.annual?.meanHeatRateKJPerKWh ?? null,
+  shortfallHours: (y) => y.annual?.shortfallHours ?? null,
+};
+
+/**
+ * The site year's figures for the matrix's candidates; a candidate the year does not hold
+ * (or one the engine refused) has null figures, never 0.
+ */
+export function yearOf(siteYear: SiteYear, candidateIds: string[]): MatrixYear {
+  const byId = new Map(siteYear.candidates.map((y) => [y.candidateId, y]));
+  const computed = candidateIds.map((id) => byId.get(id)).find((y) => y !== undefined && y.error === null);
+  const finite = (v: number | null) => (v !== null && Number.isFinite(v) ? v : null);
+  return {
+    profile: siteYear.profile,
+    firedHoursPerYear: siteYear.firedHoursPerYear,
+    hotDayK: computed?.hotDayK ?? null,
+    coldDayK: computed?.coldDayK ?? null,
+    rule: yearRule,
+    figures: matrixYearFigureKeys.map((key) => ({
+      key,
+      label: matrixYearFigureDefs[key].label,
+      unit: matrixYearFigureDefs[key].unit,
+      values: Object.fromEntries(
+        candidateIds.map((id) => {
+          const y = byId.get(id);
+          return [id, y && y.error === null ? finite(yearFigureOf[key](y)) : null];
+        }),
+      ),
+    })),
+  };
 }
 
 /** The whole matrix from what was read; the same inputs always give the same matrix. */
@@ -205,6 +252,14 @@ export function buildMatrix(inputs: MatrixInputs, madeAt: Date = new Date()): Ma
     rounds,
     scorers,
     rules: { preScore: `Pre-scores of measured criteria: ${preScoreRule}.`, total: totalRule },
+    ...(inputs.siteYear
+      ? {
+          year: yearOf(
+            inputs.siteYear,
+            candidates.map((c) => c.id),
+          ),
+        }
+      : {}),
     madeAt: madeAt.toISOString(),
   };
 }
@@ -226,17 +281,24 @@ export async function marksOf(db: Reader, reviewId: string): Promise<Mark[]> {
 /**
  * GET /api/reviews/:reviewId/matrix. Access is not checked here: the caller checks. The
  * viewer decides nothing in the matrix itself (tallies are the same for every role); it is
- * who the rounds are read for.
+ * who the rounds are read for. The site year's figures come along (`withYear: false` leaves
+ * them out, for a caller that needs only the scores' cells and totals).
  */
-export async function matrixOf(db: Database, reviewId: string, viewerId: string): Promise<Matrix> {
+export async function matrixOf(
+  db: Database,
+  reviewId: string,
+  viewerId: string,
+  { withYear = true }: { withYear?: boolean } = {},
+): Promise<Matrix> {
   // Stamped before the reads: of two matrices, the later stamp saw every change the earlier did.
   const madeAt = new Date();
-  const [review, basisRow, candidates, scores, rounds] = await Promise.all([
+  const [review, basisRow, candidates, scores, rounds, siteYear] = await Promise.all([
     getReview(db, reviewId),
     readBasis(db, reviewId),
     listCandidates(db, reviewId),
     marksOf(db, reviewId),
     listRounds(db, reviewId, { userId: viewerId, role: 'observer' }),
+    withYear ? getSiteYear(db, reviewId) : undefined,
   ]);
   const basis = toDesignBasis(basisRow, review.createdAt);
   return buildMatrix(
@@ -248,6 +310,7 @@ export async function matrixOf(db: Database, reviewId: string, viewerId: string)
       candidates,
       scores,
       rounds,
+      siteYear,
     },
     madeAt,
   );
