@@ -101,8 +101,9 @@ export function usePutScoresMutation(reviewId: string) {
 /**
  * Listens on the review's room for what changes the matrix: `score:changed` patches the
  * scores and the matrix (a change in who scored refetches it, as every measured cell moves);
- * `basis:updated` (weights, criteria), candidate news and rounds refetch the matrix, so the
- * ranking follows a weight change at once. The room itself is joined by the board's
+ * `basis:updated` (weights, criteria, fired hours), candidate news, rounds and
+ * `site-year:updated` (a profile stored or removed) refetch the matrix, so the ranking
+ * follows a weight change at once and the site year's figures a new profile. The room itself is joined by the board's
  * `useReviewLiveUpdates`, which the matrix screen mounts too.
  */
 export function useScoresLiveUpdates(reviewId: string | undefined, myUserId?: string) {
@@ -130,6 +131,7 @@ export function useScoresLiveUpdates(reviewId: string | undefined, myUserId?: st
       'round:opened',
       'round:tallied',
       'round:closed',
+      'site-year:updated',
     ] as const;
     const onReconnect = () => {
       refetchMatrix();

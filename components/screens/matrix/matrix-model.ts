@@ -1,6 +1,8 @@
 import * as format from '@/components/ui/format';
 import type { Formatted, UnitSystem } from '@/components/ui/format';
-import type { Matrix, MatrixFigureKey } from '@/server/contracts/matrix';
+import type { Matrix, MatrixFigureKey, MatrixYearFigureKey } from '@/server/contracts/matrix';
+
+import { ambient, energy, hours, tonnes } from '../site-year/site-year-format';
 
 /**
  * The comparison matrix as the screen lays it out: one row model per line (figure,
@@ -23,7 +25,9 @@ export type RowModel = {
   label: string;
   /** Beside the label: the weight, the unit. */
   sub?: string;
-  kind: 'figure' | 'criterion' | 'total' | 'rank' | 'round';
+  kind: 'figure' | 'year' | 'criterion' | 'total' | 'rank' | 'round';
+  /** The first row of a titled group carries the group's title (the table draws a band above it). */
+  group?: { title: string; caption: string };
   /** Sorting by this row puts the highest first, unless lower is better (rank, heat rate…). */
   lowerFirst?: boolean;
   cells: Record<string, CellModel>;
@@ -53,6 +57,79 @@ export function showFigure(key: MatrixFigureKey, value: number, system: UnitSyst
   }
 }
 
+/** A site-year figure in the reader's units (the matrix carries SI: kW, MWh, t, kJ/kWh, h). */
+export function showYearFigure(key: MatrixYearFigureKey, value: number, system: UnitSystem): Formatted {
+  switch (key) {
+    case 'hotDayKW':
+    case 'coldDayKW':
+      return format.power(value, system);
+    case 'energyMWh':
+      return energy(value);
+    case 'fuelTonnes':
+    case 'co2Tonnes':
+      return tonnes(value, system);
+    case 'meanHeatRateKJPerKWh':
+      return format.heatRate(value, system);
+    case 'shortfallHours':
+      return hours(value);
+  }
+}
+
+/** Sorting by these puts the lowest first: less fuel, CO2 and heat rate, fewer short hours. */
+const yearLowerIsBetter: Partial<Record<MatrixYearFigureKey, boolean>> = {
+  fuelTonnes: true,
+  co2Tonnes: true,
+  meanHeatRateKJPerKWh: true,
+  shortfallHours: true,
+};
+
+const annualKeys = new Set<MatrixYearFigureKey>([
+  'energyMWh',
+  'fuelTonnes',
+  'co2Tonnes',
+  'meanHeatRateKJPerKWh',
+  'shortfallHours',
+]);
+
+/** The caption of the Site year group: what the figures rest on. */
+export function yearCaption(year: NonNullable<Matrix['year']>): string {
+  const basis = year.profile
+    ? `${format.count(year.profile.hours, 'hour', 'hours')} of profile, ${year.firedHoursPerYear} fired h a year`
+    : 'no hourly profile: hot and cold days only';
+  return `First-order estimate without component maps · ${basis}`;
+}
+
+function yearRows(m: Matrix, system: UnitSystem): RowModel[] {
+  const year = m.year;
+  if (!year) return [];
+  const day = (k: number | null) => {
+    if (k === null) return [];
+    const a = ambient(k, system);
+    return [`at ${a.value} ${a.unit}`];
+  };
+  return year.figures.map((f, i) => {
+    const unitShown = Object.values(f.values).find((v): v is number => v !== null);
+    const unit = unitShown !== undefined ? [showYearFigure(f.key, unitShown, system).unit] : [];
+    const at = f.key === 'hotDayKW' ? day(year.hotDayK) : f.key === 'coldDayKW' ? day(year.coldDayK) : [];
+    const why = annualKeys.has(f.key) && !year.profile ? 'no site profile' : 'no result';
+    return {
+      key: `year-${f.key}`,
+      label: f.label,
+      sub: [...at, ...unit].join(' · ') || undefined,
+      kind: 'year' as const,
+      lowerFirst: yearLowerIsBetter[f.key],
+      group: i === 0 ? { title: 'Site year', caption: yearCaption(year) } : undefined,
+      cells: Object.fromEntries(
+        m.candidates.map((c) => {
+          const v = f.values[c.id] ?? null;
+          if (v === null) return [c.id, { value: '—', unit: '', note: why, missing: true, sortValue: null }];
+          return [c.id, { ...showYearFigure(f.key, v, system), sortValue: v }];
+        }),
+      ),
+    };
+  });
+}
+
 const lowerIsBetter: Partial<Record<MatrixFigureKey, boolean>> = {
   heatRateKJPerKWh: true,
   co2KgPerMWh: true,
@@ -80,6 +157,7 @@ export function rowsOf(m: Matrix, system: UnitSystem): RowModel[] {
       ),
     });
   }
+  rows.push(...yearRows(m, system));
   m.rows.forEach((row, i) => {
     const criterion = m.criteria[i]!;
     rows.push({

@@ -23,9 +23,9 @@ import { MatrixTable } from './matrix-table';
 import { ScoreSheet } from './score-sheet';
 
 /**
- * The comparison matrix of a Review: candidates as columns; figures with units, each
- * criterion's weight, mean and spread, the weighted total and the rank; the preference
- * rounds' tallies. Sort by any row; score in the sheet; download CSV and XLSX.
+ * The comparison matrix of a Review: candidates as columns; figures with units, the site
+ * year's figures, each criterion's weight, mean and spread, the weighted total and the rank;
+ * the preference rounds' tallies. Sort by any row; score in the sheet; download CSV and XLSX.
  */
 export function MatrixScreen({ reviewId }: { reviewId: string }) {
   const wide = useIsWide();
@@ -101,6 +101,11 @@ export function MatrixScreen({ reviewId }: { reviewId: string }) {
           <Text size="small" tone="soft">
             {m.rules.total} Equal totals share a rank.
           </Text>
+          {m.year ? (
+            <Text size="small" tone="soft" testID="matrix-year-rule">
+              {m.year.rule}
+            </Text>
+          ) : null}
           <Text size="caption" tone="muted" testID="matrix-scorers">
             {m.scorers === 1 ? '1 person has' : `${m.scorers} people have`} scored · design basis revision{' '}
             {m.basisRevision}

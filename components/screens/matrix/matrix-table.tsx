@@ -13,6 +13,7 @@ const labelWidthWide = 240;
 const cellWidth = 132;
 const rowHeight = 72;
 const headHeight = 56;
+const bandHeight = 48;
 
 type Props = {
   matrix: Matrix;
@@ -24,7 +25,8 @@ type Props = {
 };
 
 /**
- * Candidates as columns, one line per figure, criterion, total, rank and round. On a phone
+ * Candidates as columns, one line per figure, site-year figure, criterion, total, rank and
+ * round; a titled group (the site year) opens with a band. On a phone
  * the label column stays while the candidate columns swipe sideways; wide, it is one table.
  * Tapping (or Enter on) a row's label sorts the candidates by that row; again reverses.
  */
@@ -113,6 +115,29 @@ export function MatrixTable({ matrix, rows, order, sort, onSort, wide }: Props) 
     );
   };
 
+  /** A titled group's band: the title in the label column, the caption beside it. */
+  const bandTitle = (row: RowModel) => (
+    <View
+      key={`band-${row.key}`}
+      style={[styles.band, { width: labelWidth, borderBottomColor: t.hairline, backgroundColor: t.surfaceSunk }]}
+      testID={`matrix-group-${row.key}`}
+    >
+      <Text size="small" weight="semibold">
+        {row.group!.title}
+      </Text>
+    </View>
+  );
+  const bandCaption = (row: RowModel, style: object) => (
+    <View
+      key={`band-caption-${row.key}`}
+      style={[styles.band, style, { borderBottomColor: t.hairline, backgroundColor: t.surfaceSunk }]}
+    >
+      <Text size="caption" tone="soft" numberOfLines={2} testID={`matrix-group-caption-${row.key}`}>
+        {row.group!.caption}
+      </Text>
+    </View>
+  );
+
   const corner = (
     <View style={[styles.head, { width: labelWidth, borderTopColor: 'transparent' }]}>
       <Text size="caption" tone="muted">
@@ -128,12 +153,18 @@ export function MatrixTable({ matrix, rows, order, sort, onSort, wide }: Props) 
           {corner}
           {order.map(head)}
         </View>
-        {rows.map((row) => (
+        {rows.map((row) => [
+          row.group ? (
+            <View key={`band-${row.key}`} style={styles.row}>
+              {bandTitle(row)}
+              {bandCaption(row, styles.flexCell)}
+            </View>
+          ) : null,
           <View key={row.key} style={styles.row} testID={`matrix-row-${row.key}`}>
             {label(row)}
             {order.map((id) => cell(row, id))}
-          </View>
-        ))}
+          </View>,
+        ])}
       </View>
     );
   }
@@ -142,16 +173,17 @@ export function MatrixTable({ matrix, rows, order, sort, onSort, wide }: Props) 
     <View style={[styles.table, styles.row, { borderColor: t.hairline }]} testID="matrix-table" role="table">
       <View style={[styles.stuck, { borderRightColor: t.hairline }]}>
         {corner}
-        {rows.map(label)}
+        {rows.map((row) => [row.group ? bandTitle(row) : null, label(row)])}
       </View>
       <ScrollView horizontal testID="matrix-columns" showsHorizontalScrollIndicator>
         <View>
           <View style={styles.row}>{order.map(head)}</View>
-          {rows.map((row) => (
+          {rows.map((row) => [
+            row.group ? bandCaption(row, { width: Math.max(1, order.length) * cellWidth }) : null,
             <View key={row.key} style={styles.row} testID={`matrix-row-${row.key}`}>
               {order.map((id) => cell(row, id))}
-            </View>
-          ))}
+            </View>,
+          ])}
         </View>
       </ScrollView>
     </View>
@@ -172,6 +204,12 @@ const styles = StyleSheet.create({
   label: {
     height: rowHeight,
     minHeight: touchTarget,
+    paddingHorizontal: space[1],
+    justifyContent: 'center',
+    borderBottomWidth: 1,
+  },
+  band: {
+    height: bandHeight,
     paddingHorizontal: space[1],
     justifyContent: 'center',
     borderBottomWidth: 1,
