@@ -38,7 +38,9 @@ afterAll(async () => {
 async function snapshot() {
   const [runs, lines] = await Promise.all([ctx.db.select().from(robustnessRun), ctx.db.select().from(activity)]);
   return JSON.stringify({
-    runs: runs.map((r) => [r.id, r.reviewId, r.samples, r.seed, r.status.startsWith('cancel') ? 'cancel' : 'not cancelled']).sort(),
+    runs: runs
+      .map((r) => [r.id, r.reviewId, r.samples, r.seed, r.status.startsWith('cancel') ? 'cancel' : 'not cancelled'])
+      .sort(),
     activity: lines.filter((l) => l.kind.startsWith('robustness:started')).length,
     news: ctx.sent.filter((s) => s.event === 'robustness:finished' && s.reviewId === t.reviewId).length,
   });
