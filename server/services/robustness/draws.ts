@@ -155,20 +155,19 @@ type Figures = {
   netWork: number;
   heatRate: number | null;
   fuelFlow: number | null;
-  values: Record<string, number | null>;
+  /** The engine's result, read by key for the measured criteria. */
+  values: Readonly<Record<string, unknown>>;
 };
 
 function figuresOf(input: CycleInput): Figures | null {
   try {
     const r = evaluateCycle(input, { paths: false });
-    const values: Record<string, number | null> = {};
-    for (const [k, v] of Object.entries(r)) if (typeof v === 'number' || v === null) values[k] = v as number | null;
     return {
       efficiency: r.thermalEfficiency,
       netWork: r.netWorkKJPerKg,
       heatRate: r.heatRateKJPerKWh,
       fuelFlow: r.fuelMassFlowKgPerS,
-      values,
+      values: r as unknown as Readonly<Record<string, unknown>>,
     };
   } catch {
     return null;
