@@ -148,7 +148,10 @@ export async function putScores(
     return { scorersBefore: before, scorersAfter: await countScorers() };
   });
 
-  const [mine, matrix] = await Promise.all([scoresRead(db, reviewId, actorId), matrixOf(db, reviewId, actorId)]);
+  const [mine, matrix] = await Promise.all([
+    scoresRead(db, reviewId, actorId),
+    matrixOf(db, reviewId, actorId, { withYear: false }),
+  ]);
   const [{ name }] = await db.select({ name: user.name }).from(user).where(eq(user.id, actorId));
   const kept = new Map(mine.map((s) => [pairKey(s.candidateId, s.criterionId), s]));
   const payload: ScoreChanged = {
