@@ -1,37 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { reviewNews } from '@/server/contracts/news';
 
-import { createTestApp } from '../helpers/api';
-import { startTestServer } from '../helpers/test-server';
-import { boardTeam, heard, next, openClient, until, type BoardTeam, type Client } from './live-fixture';
+import { heard, liveBoards, next, until } from './live-fixture';
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let ctx: ReturnType<typeof createTestApp>;
-const sockets: Client[] = [];
-let t: BoardTeam;
-let them: BoardTeam;
-
-async function onBoard(cookie: string, reviewId: string) {
-  const socket = await openClient(server.baseURL, cookie, sockets);
-  expect(await socket.emitWithAck('review:join', { reviewId })).toEqual({ ok: true });
-  return socket;
-}
-
-beforeAll(async () => {
-  server = await startTestServer();
-  ctx = createTestApp();
-  t = await boardTeam(ctx, server.baseURL, 'Signe', 2);
-  them = await boardTeam(ctx, server.baseURL, 'Outsider', 1);
-});
-afterAll(async () => {
-  for (const s of sockets) s.disconnect();
-  await server.stop();
-  await ctx.close();
-});
+const live = liveBoards({ label: 'Signe', candidates: 2 }, 'Outsider');
 
 describe('the decision record, live', () => {
   it('an edit reaches another member as decision:updated, the signature as decision:signed; another board hears nothing', async () => {
+    const { t, them, onBoard } = live;
     const reviewer = await onBoard(t.reviewer.cookie, t.reviewId);
     const outsider = await onBoard(them.lead.cookie, them.reviewId);
     const strayUpdates = heard(outsider, 'decision:updated');

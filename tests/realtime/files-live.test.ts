@@ -1,50 +1,23 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { reviewNews } from '@/realtime/events';
 
-import { createTestApp } from '../helpers/api';
-import { startTestServer } from '../helpers/test-server';
 import { pdfBytes } from '../server/fixtures/files';
-import { boardTeam, heard, next, openClient, until, type BoardTeam, type Client } from './live-fixture';
+import { heard, liveBoards, next, until } from './live-fixture';
 
 /** file:added and file:removed reach the Review's room on a real server, and no other Team's board. */
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let ctx: ReturnType<typeof createTestApp>;
-const sockets: Client[] = [];
-let t: BoardTeam;
-let them: BoardTeam;
-
-async function onBoard(cookie: string, reviewId: string) {
-  const socket = await openClient(server.baseURL, cookie, sockets);
-  expect(await socket.emitWithAck('review:join', { reviewId })).toEqual({ ok: true });
-  return socket;
-}
-
-beforeAll(async () => {
-  server = await startTestServer();
-  ctx = createTestApp();
-  t = await boardTeam(ctx, server.baseURL, 'Filer', 1);
-  them = await boardTeam(ctx, server.baseURL, 'Stranger', 1);
-});
-afterAll(async () => {
-  for (const s of sockets) s.disconnect();
-  await server.stop();
-  await ctx.close();
-});
+const live = liveBoards({ label: 'Filer', candidates: 1 }, 'Stranger');
 
 describe('file news', () => {
   it('an Engineer’s upload and delete reach the Observer on the board, and nobody on another Team’s', async () => {
+    const { t, them, onBoard, open } = live;
     const observer = await onBoard(t.observer.cookie, t.reviewId);
     const outsider = await onBoard(them.lead.cookie, them.reviewId);
     const outsiderAdded = heard(outsider, 'file:added');
     const outsiderRemoved = heard(outsider, 'file:removed');
     // Another Team's member cannot join this board to listen.
-    expect(
-      await (
-        await openClient(server.baseURL, them.lead.cookie, sockets)
-      ).emitWithAck('review:join', { reviewId: t.reviewId }),
-    ).toMatchObject({
+    expect(await (await open(them.lead.cookie)).emitWithAck('review:join', { reviewId: t.reviewId })).toMatchObject({
       error: { code: 'not_found' },
     });
 

@@ -1,4 +1,5 @@
 import { io as connect, type Socket } from 'socket.io-client';
+import { afterAll, beforeAll, expect } from 'vitest';
 
 import type { Database } from '@/db/client';
 import { candidate } from '@/db/schema';
@@ -7,7 +8,8 @@ import type { Auth } from '@/server/auth/auth';
 import type { ReviewNews } from '@/server/contracts/news';
 import type { TeamRole } from '@/server/contracts/roles';
 
-import { createTeam, signUp, type TestUser } from '../helpers/api';
+import { createTeam, createTestApp, signUp, type TestUser } from '../helpers/api';
+import { startTestServer } from '../helpers/test-server';
 
 /** Shared by the live board's socket tests: a Team on a real server, clients, and waiting. */
 
@@ -27,6 +29,13 @@ export function openClient(baseURL: string, cookie: string | undefined, opened: 
     socket.once('connect', () => resolve(socket));
     socket.once('connect_error', reject);
   });
+}
+
+/** A socket of `cookie` on `baseURL` that has joined `reviewId`; resolves after the ack. */
+export async function joinBoard(baseURL: string, cookie: string, reviewId: string, opened: Client[]): Promise<Client> {
+  const socket = await openClient(baseURL, cookie, opened);
+  expect(await socket.emitWithAck('review:join', { reviewId })).toEqual({ ok: true });
+  return socket;
 }
 
 /** Resolves once `done()` holds; the test's own timeout bounds the wait. */
@@ -114,4 +123,42 @@ export async function addCandidates(db: Database, reviewId: string, n: number): 
     )
     .returning({ id: candidate.id });
   return rows.map((r) => r.id);
+}
+
+export type LiveBoards = {
+  server: Awaited<ReturnType<typeof startTestServer>>;
+  ctx: ReturnType<typeof createTestApp>;
+  /** The Team under test, with `candidates` candidates. */
+  t: BoardTeam;
+  /** Another Team with one candidate, whose board must hear nothing of t's. */
+  them: BoardTeam;
+  /** A socket of `cookie` that has joined `reviewId`. */
+  onBoard(cookie: string, reviewId: string): Promise<Client>;
+  /** A socket of `cookie` that has joined nothing. */
+  open(cookie?: string): Promise<Client>;
+};
+
+/**
+ * For one test file: a real server and the test app, started before its tests and stopped
+ * (with every socket opened through it) after; a Team `ours` and an outsider Team `theirs`.
+ * The fields are filled once the file's beforeAll has run.
+ */
+export function liveBoards(ours: { label: string; candidates: number }, theirs: string): LiveBoards {
+  const sockets: Client[] = [];
+  const live = {
+    onBoard: (cookie: string, reviewId: string) => joinBoard(live.server.baseURL, cookie, reviewId, sockets),
+    open: (cookie?: string) => openClient(live.server.baseURL, cookie, sockets),
+  } as LiveBoards;
+  beforeAll(async () => {
+    live.server = await startTestServer();
+    live.ctx = createTestApp();
+    live.t = await boardTeam(live.ctx, live.server.baseURL, ours.label, ours.candidates);
+    live.them = await boardTeam(live.ctx, live.server.baseURL, theirs, 1);
+  });
+  afterAll(async () => {
+    for (const s of sockets) s.disconnect();
+    await live.server.stop();
+    await live.ctx.close();
+  });
+  return live;
 }

@@ -1,39 +1,16 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { reviewNews } from '@/realtime/events';
 
-import { createTestApp } from '../helpers/api';
-import { startTestServer } from '../helpers/test-server';
-import { boardTeam, heard, next, openClient, until, type BoardTeam, type Client } from './live-fixture';
+import { heard, liveBoards, next, until } from './live-fixture';
 
 /** Scores arrive live in the room: a PUT through the API reaches the other clients on the board. */
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let ctx: ReturnType<typeof createTestApp>;
-const sockets: Client[] = [];
-let t: BoardTeam;
-let them: BoardTeam;
-
-async function onBoard(cookie: string, reviewId: string) {
-  const socket = await openClient(server.baseURL, cookie, sockets);
-  expect(await socket.emitWithAck('review:join', { reviewId })).toEqual({ ok: true });
-  return socket;
-}
-
-beforeAll(async () => {
-  server = await startTestServer();
-  ctx = createTestApp();
-  t = await boardTeam(ctx, server.baseURL, 'Scorer', 2);
-  them = await boardTeam(ctx, server.baseURL, 'Elsewhere', 1);
-});
-afterAll(async () => {
-  for (const s of sockets) s.disconnect();
-  await server.stop();
-  await ctx.close();
-});
+const live = liveBoards({ label: 'Scorer', candidates: 2 }, 'Elsewhere');
 
 describe('score:changed', () => {
   it('a Reviewer’s PUT reaches the Observer’s and the Lead’s sockets, and no other Team’s board', async () => {
+    const { t, them, onBoard } = live;
     const observer = await onBoard(t.observer.cookie, t.reviewId);
     const lead = await onBoard(t.lead.cookie, t.reviewId);
     const outsider = await onBoard(them.lead.cookie, them.reviewId);

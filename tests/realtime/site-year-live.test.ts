@@ -1,41 +1,18 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { reviewNews } from '@/realtime/events';
 import { demoSiteYearCsv } from '@/server/ops/demo-site-year';
 
-import { createTestApp } from '../helpers/api';
-import { startTestServer } from '../helpers/test-server';
-import { boardTeam, heard, next, openClient, until, type BoardTeam, type Client } from './live-fixture';
+import { heard, liveBoards, next, until } from './live-fixture';
 
 /** site-year:updated reaches the room's members after an upload or a removal, and no other Team's board. */
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let ctx: ReturnType<typeof createTestApp>;
-const sockets: Client[] = [];
-let t: BoardTeam;
-let them: BoardTeam;
+const live = liveBoards({ label: 'Yearly', candidates: 1 }, 'Elsewhere');
 const csv = Buffer.from(demoSiteYearCsv(), 'utf8');
-
-async function onBoard(cookie: string, reviewId: string) {
-  const socket = await openClient(server.baseURL, cookie, sockets);
-  expect(await socket.emitWithAck('review:join', { reviewId })).toEqual({ ok: true });
-  return socket;
-}
-
-beforeAll(async () => {
-  server = await startTestServer();
-  ctx = createTestApp();
-  t = await boardTeam(ctx, server.baseURL, 'Yearly', 1);
-  them = await boardTeam(ctx, server.baseURL, 'Elsewhere', 1);
-});
-afterAll(async () => {
-  for (const s of sockets) s.disconnect();
-  await server.stop();
-  await ctx.close();
-});
 
 describe('site-year:updated', () => {
   it("an upload and a removal reach the Observer's socket with the summary, and no other Team's board", async () => {
+    const { t, them, onBoard } = live;
     const observer = await onBoard(t.observer.cookie, t.reviewId);
     const outsider = await onBoard(them.lead.cookie, them.reviewId);
     const outsiderHeard = heard(outsider, 'site-year:updated');
