@@ -10,6 +10,7 @@ import {
 } from '@/components/data/decision';
 import { Button } from '@/components/ui/button';
 import { CautionLine } from '@/components/ui/caution-line';
+import { DownloadLink } from '@/components/ui/download-link';
 import { focusRing, type PressState } from '@/components/ui/focus';
 import { useIsWide } from '@/components/ui/layout';
 import { useMessage } from '@/components/ui/message';
@@ -24,7 +25,6 @@ import { roleAllows } from '@/server/contracts/roles';
 import { BoardBar } from '../board/board-bar';
 import { DecisionForm } from './decision-form';
 import { DecisionView } from './decision-view';
-import { PdfLink } from './pdf-link';
 
 /** The revisions as a row of choices, newest first; the one shown is marked. */
 function RevisionPicker({
@@ -103,7 +103,12 @@ export function DecisionScreen({ reviewId }: { reviewId: string }) {
             <RevisionPicker revisions={record.revisions} shown={shown.number} onPick={setPicked} />
           ) : null}
           <View style={styles.tools}>
-            <PdfLink url={decisionPdfURL(reviewId, shown.number)} number={shown.number} testID="decision-pdf" />
+            <DownloadLink
+              url={decisionPdfURL(reviewId, shown.number)}
+              label="PDF"
+              accessibilityLabel={`Download revision ${shown.number} of the decision record as PDF`}
+              testID="decision-pdf"
+            />
             {canEdit && current.status === 'signed' && shown.id === current.id ? (
               <Button
                 label={`Reopen as revision ${current.number + 1}`}

@@ -6,6 +6,7 @@ import { useMeQuery } from '@/components/data/me';
 import { matrixDownloadUrl, useMatrixQuery, useScoresLiveUpdates, useScoresQuery } from '@/components/data/scores';
 import { Button } from '@/components/ui/button';
 import { CautionLine } from '@/components/ui/caution-line';
+import { DownloadLink } from '@/components/ui/download-link';
 import { useIsWide } from '@/components/ui/layout';
 import { PressableLink } from '@/components/ui/pressable-link';
 import { Screen } from '@/components/ui/screen';
@@ -17,7 +18,6 @@ import { roleAllows } from '@/server/contracts/roles';
 
 import { BoardBar } from '../board/board-bar';
 import { RobustnessPanel } from '../robustness/robustness-panel';
-import { DownloadLink } from './download-link';
 import { rowsOf, sortCandidates, type Sort } from './matrix-model';
 import { MatrixTable } from './matrix-table';
 import { ScoreSheet } from './score-sheet';
@@ -81,8 +81,18 @@ export function MatrixScreen({ reviewId }: { reviewId: string }) {
               testID="matrix-score"
             />
           ) : null}
-          <DownloadLink url={matrixDownloadUrl(reviewId, 'csv')} label="CSV" testID="matrix-download-csv" />
-          <DownloadLink url={matrixDownloadUrl(reviewId, 'xlsx')} label="XLSX" testID="matrix-download-xlsx" />
+          <DownloadLink
+            url={matrixDownloadUrl(reviewId, 'csv')}
+            label="CSV"
+            accessibilityLabel="Download the comparison matrix as CSV"
+            testID="matrix-download-csv"
+          />
+          <DownloadLink
+            url={matrixDownloadUrl(reviewId, 'xlsx')}
+            label="XLSX"
+            accessibilityLabel="Download the comparison matrix as XLSX"
+            testID="matrix-download-xlsx"
+          />
         </View>
         {scoring && canScore ? (
           scores.data ? (

@@ -1,22 +1,23 @@
 import { Pressable, StyleSheet } from 'react-native';
 
-import { focusRing, type PressState } from '@/components/ui/focus';
-import { Text } from '@/components/ui/text';
-import { useTheme } from '@/components/ui/theme';
-import { radius, space, touchTarget } from '@/components/ui/tokens';
+import type { DownloadLinkProps } from './download-link';
+import { focusRing, type PressState } from './focus';
+import { Text } from './text';
+import { useTheme } from './theme';
+import { radius, space, touchTarget } from './tokens';
 
 /**
- * The PDF on the web: a real <a href download> to the route. The page is served by the API
- * itself, so the session cookie goes along; phones and desktops save the file alike.
+ * A download on the web: a real <a href download> to the route. The page is served by
+ * the API itself, so the session cookie goes along; phones and desktops save the file alike.
  */
-export function PdfLink({ url, number, testID }: { url: string; number: number; testID: string }) {
+export function DownloadLink({ url, label, accessibilityLabel, testID }: DownloadLinkProps) {
   const t = useTheme();
   const link = { href: url, hrefAttrs: { download: true, rel: 'noopener' } } as object;
   return (
     <Pressable
       role="link"
       {...link}
-      accessibilityLabel={`Download revision ${number} of the decision record as PDF`}
+      accessibilityLabel={accessibilityLabel}
       testID={testID}
       style={({ focused, hovered }: PressState) => [
         styles.link,
@@ -25,7 +26,7 @@ export function PdfLink({ url, number, testID }: { url: string; number: number; 
       ]}
     >
       <Text size="small" weight="medium">
-        ↓ PDF
+        ↓ {label}
       </Text>
     </Pressable>
   );
