@@ -6,19 +6,20 @@ import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { space, touchTarget } from '@/components/ui/tokens';
 
+import { useReplacesMainBar } from '../shell/main-bar';
+
 export type BoardPlace = 'board' | 'matrix' | 'decision' | 'activity';
 
 const places: Array<{ key: BoardPlace; label: string; href: (reviewId: string) => string }> = [
   { key: 'board', label: 'Board', href: (id) => `/reviews/${encodeURIComponent(id)}` },
   { key: 'matrix', label: 'Matrix', href: (id) => `/reviews/${encodeURIComponent(id)}/matrix` },
   { key: 'decision', label: 'Decision', href: (id) => `/reviews/${encodeURIComponent(id)}/decision` },
-  // The Team's Activity lists every Review's changes, this one's among them.
   { key: 'activity', label: 'Activity', href: (id) => `/reviews/${encodeURIComponent(id)}/activity` },
 ];
 
 /**
  * The places of one Review: Board · Matrix · Decision · Activity. A bar along the bottom on
- * a phone, a row of tabs under the title on a wide screen.
+ * a phone (where it stands in for the main bar), a row of tabs under the title on a wide screen.
  */
 export function BoardBar({
   reviewId,
@@ -30,6 +31,7 @@ export function BoardBar({
   layout: 'bar' | 'tabs';
 }) {
   const t = useTheme();
+  useReplacesMainBar(layout === 'bar');
   return (
     <View
       role="navigation"

@@ -10,16 +10,10 @@ import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { space } from '@/components/ui/tokens';
 
+import { MainBarProvider } from './main-bar';
 import { navItems } from './nav-items';
 import { NavLink } from './nav-link';
 import { TeamSwitcher } from './team-switcher';
-
-/**
- * The places of a Review that carry the Review's own bar (Board · Matrix · Decision ·
- * Activity) at the bottom of a phone: there the main bar gives way, so the phone never shows
- * two bars; the Review's "← Reviews" link leads back.
- */
-const reviewBarPlaces = /^\/reviews\/[^/]+(\/(matrix|decision|activity))?\/?$/;
 
 /** Phones: a top strip with the Team switcher and a bottom bar. ≥ 1024 px: a side rail. */
 export function AppShell({ userName, children }: { userName: string; children: ReactNode }) {
@@ -60,29 +54,33 @@ export function AppShell({ userName, children }: { userName: string; children: R
   }
 
   return (
-    <View style={[styles.phone, { backgroundColor: t.surface, paddingTop: insets.top }]}>
-      <View style={[styles.topStrip, { borderBottomColor: t.hairline }]}>
-        <BrandMark size={28} ink={t.text} />
-        <TeamSwitcher />
-      </View>
-      <View style={styles.main} role="main">
-        {children}
-      </View>
-      {reviewBarPlaces.test(pathname) ? null : (
-        <View
-          style={[
-            styles.bar,
-            { borderTopColor: t.hairline, backgroundColor: t.surfaceRaised, paddingBottom: insets.bottom },
-          ]}
-          role="navigation"
-          accessibilityLabel="Main"
-        >
-          {navItems.map((item) => (
-            <NavLink key={item.href} item={item} active={item.matches(pathname)} layout="bar" />
-          ))}
+    <MainBarProvider>
+      {(mainBarHidden) => (
+        <View style={[styles.phone, { backgroundColor: t.surface, paddingTop: insets.top }]}>
+          <View style={[styles.topStrip, { borderBottomColor: t.hairline }]}>
+            <BrandMark size={28} ink={t.text} />
+            <TeamSwitcher />
+          </View>
+          <View style={styles.main} role="main">
+            {children}
+          </View>
+          {mainBarHidden ? null : (
+            <View
+              style={[
+                styles.bar,
+                { borderTopColor: t.hairline, backgroundColor: t.surfaceRaised, paddingBottom: insets.bottom },
+              ]}
+              role="navigation"
+              accessibilityLabel="Main"
+            >
+              {navItems.map((item) => (
+                <NavLink key={item.href} item={item} active={item.matches(pathname)} layout="bar" />
+              ))}
+            </View>
+          )}
         </View>
       )}
-    </View>
+    </MainBarProvider>
   );
 }
 
