@@ -187,6 +187,13 @@ describe('a meeting on the live board: Lead at 1440×900, Reviewer at 390×844',
     expect(await byTestId(narrow, 'nav-reviews').count()).toBe(0);
     const overflow = await narrow.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
+    // The Lead's four header buttons wrap inside the screen (the page scroller would clip them unseen).
+    const narrowLead = await signedIn(lead, { width: 360, height: 740 });
+    await narrowLead.goto(board());
+    for (const id of ['design-basis-open', 'site-year-open', 'review-details-toggle', 'add-candidate-toggle']) {
+      const box = await byTestId(narrowLead, id).boundingBox();
+      expect(box!.x + box!.width, id).toBeLessThanOrEqual(360);
+    }
     const card = await byTestId(narrow, `candidate-card-${ids.simple}`).boundingBox();
     expect(card!.x).toBeGreaterThanOrEqual(0);
     expect(card!.x + card!.width).toBeLessThanOrEqual(360);

@@ -450,7 +450,8 @@ const styles = StyleSheet.create({
   headRow: { flexDirection: 'row', alignItems: 'center' },
   titleRow: { flexDirection: 'row', alignItems: 'flex-end', gap: space[2], flexWrap: 'wrap' },
   titleText: { flex: 1, minWidth: 200 },
-  actions: { flexDirection: 'row', gap: space[1], flexWrap: 'wrap' },
+  // Wraps within the screen's width (a phone puts the buttons on two lines).
+  actions: { flexDirection: 'row', gap: space[1], flexWrap: 'wrap', flexShrink: 1, maxWidth: '100%' },
   grid: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-start' },
   panel: { width: 380, flexGrow: 0, borderLeftWidth: 1 },
   panelPad: { padding: space[2], gap: space[2] },

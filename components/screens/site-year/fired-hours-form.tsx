@@ -68,5 +68,5 @@ export function FiredHoursForm({ reviewId, basis }: { reviewId: string; basis: D
 
 const styles = StyleSheet.create({
   row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-end', gap: space[1] },
-  field: { minWidth: 220, flexGrow: 1, maxWidth: 360 },
+  field: { flexBasis: 220, flexGrow: 1, flexShrink: 1, minWidth: 0, maxWidth: 360 },
 });
