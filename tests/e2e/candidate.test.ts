@@ -1,12 +1,8 @@
-import { existsSync } from 'node:fs';
-import path from 'node:path';
-
-import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { webDir } from '@/server/ops/web-build';
 import { createTeam, createTestApp, signUp, type TestUser } from '@/tests/helpers/api';
-import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
+import { byTestId, requireWebBundle, signedInPage, type Browser } from '@/tests/helpers/browser';
+import { startTestServer } from '@/tests/helpers/test-server';
 
 /**
  * Candidate detail and design basis in a real browser: the preview follows an unsaved
@@ -21,27 +17,14 @@ let lead: TestUser;
 let reviewer: TestUser;
 let reviewId: string;
 let candidateId: string;
-let browser: BrowserContext & { dispose(): Promise<void> };
+let browser: Browser;
 
-const byTestId = (page: Page, id: string) => page.locator(`[data-testid="${id}"]`);
-
-async function signInAs(user: TestUser, size = { width: 390, height: 844 }) {
-  const context = await launchBrowser(size);
-  context.setDefaultTimeout(10_000);
-  const url = new URL(server.baseURL);
-  await context.addCookies(
-    user.cookie.split('; ').map((pair) => {
-      const i = pair.indexOf('=');
-      return { name: pair.slice(0, i), value: pair.slice(i + 1), domain: url.hostname, path: '/' };
-    }),
-  );
-  return context;
-}
+const opened: Browser[] = [];
+const signInAs = async (user: TestUser, size = { width: 390, height: 844 }) =>
+  (await signedInPage(server.baseURL, user.cookie, size, opened, 10_000)).context() as Browser;
 
 beforeAll(async () => {
-  if (!existsSync(path.join(webDir, 'index.html'))) {
-    throw new Error('The web bundle is missing: run `npm run web:build` (npm test builds it first).');
-  }
+  requireWebBundle();
   server = await startTestServer();
   ctx = createTestApp();
   lead = await signUp(server.baseURL, 'Ingrid Lead');
@@ -69,7 +52,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await browser?.dispose();
+  for (const b of opened) await b.dispose();
   await ctx?.close();
   await server?.stop();
 });

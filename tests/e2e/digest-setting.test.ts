@@ -1,11 +1,7 @@
-import { existsSync } from 'node:fs';
-import path from 'node:path';
-
-import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { webDir } from '@/server/ops/web-build';
 import { signUp, startTeam, testPassword, type TestUser } from '@/tests/helpers/api';
+import { byTestId, requireWebBundle } from '@/tests/helpers/browser';
 import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
 
 /** The daily digest is chosen on the settings screen, kept with the account, and survives a reload. */
@@ -15,9 +11,7 @@ let person: TestUser;
 let browser: Awaited<ReturnType<typeof launchBrowser>> | undefined;
 
 beforeAll(async () => {
-  if (!existsSync(path.join(webDir, 'index.html'))) {
-    throw new Error('The web bundle is missing: run `npm run web:build` (npm test builds it first).');
-  }
+  requireWebBundle();
   server = await startTestServer();
   person = await signUp(server.baseURL, 'Dora Digest');
   await startTeam(person, 'Digest team');
@@ -27,7 +21,6 @@ afterAll(async () => {
   await server?.stop();
 });
 
-const byTestId = (page: Page, id: string) => page.locator(`[data-testid="${id}"]`);
 const stored = async () =>
   (await (await fetch(`${server.baseURL}/api/me/settings`, { headers: { cookie: person.cookie } })).json()) as {
     dailyDigest: boolean;

@@ -1,12 +1,11 @@
-import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 
-import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { repoRoot } from '@/server/ops/paths';
-import { webDir } from '@/server/ops/web-build';
 import { signUp, startTeam, testPassword, type TestUser } from '@/tests/helpers/api';
+import { byTestId, requireWebBundle } from '@/tests/helpers/browser';
 import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
 
 import { pdfBytes, pngBytes } from '../server/fixtures/files';
@@ -25,9 +24,7 @@ const browsers: Array<Awaited<ReturnType<typeof launchBrowser>>> = [];
 const artifacts = path.join(repoRoot, 'artifacts');
 
 beforeAll(async () => {
-  if (!existsSync(path.join(webDir, 'index.html'))) {
-    throw new Error('The web bundle is missing: run `npm run web:build` (npm test builds it first).');
-  }
+  requireWebBundle();
   mkdirSync(artifacts, { recursive: true });
   server = await startTestServer();
   owner = await signUp(server.baseURL, 'Petra Files');
@@ -41,8 +38,6 @@ afterAll(async () => {
   for (const b of browsers) await b.dispose();
   await server?.stop();
 });
-
-const byTestId = (page: Page, id: string) => page.locator(`[data-testid="${id}"]`);
 
 async function signedIn(viewport: { width: number; height: number }) {
   const browser = await launchBrowser(viewport);

@@ -1,15 +1,15 @@
-import { existsSync, mkdirSync } from 'node:fs';
+import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { siteYearSchema } from '@/server/contracts/site-year';
 import { demoSiteYearCsv } from '@/server/ops/demo-site-year';
 import { repoRoot } from '@/server/ops/paths';
-import { webDir } from '@/server/ops/web-build';
 import { createTeam, createTestApp, signUp, type TestUser } from '@/tests/helpers/api';
-import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
+import { byTestId, requireWebBundle, signedInPage, type Browser } from '@/tests/helpers/browser';
+import { startTestServer } from '@/tests/helpers/test-server';
 
 /**
  * The site year on the matrix screen: a Lead on a wide screen and an Engineer on a phone see
@@ -19,7 +19,6 @@ import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
 
 const screenshotDir = path.join(repoRoot, 'artifacts', 'screenshots');
 type Server = Awaited<ReturnType<typeof startTestServer>>;
-type Browser = BrowserContext & { dispose(): Promise<void> };
 let server: Server;
 let ctx: ReturnType<typeof createTestApp>;
 let lead: TestUser;
@@ -28,31 +27,17 @@ let reviewId: string;
 const ids: string[] = [];
 const browsers: Browser[] = [];
 
-const byTestId = (page: Page, id: string) => page.locator(`[data-testid="${id}"]`);
 /** A screenshot with the Site year group in view (the screen scrolls inside the page). */
 async function shot(page: Page, name: string) {
   await byTestId(page, 'matrix-group-year-hotDayKW').scrollIntoViewIfNeeded();
   await page.screenshot({ path: path.join(screenshotDir, `matrix-year-${name}.png`) });
 }
 
-async function signedIn(user: TestUser, size: { width: number; height: number }): Promise<Page> {
-  const context = (await launchBrowser(size)) as Browser;
-  browsers.push(context);
-  context.setDefaultTimeout(10_000);
-  const url = new URL(server.baseURL);
-  await context.addCookies(
-    user.cookie.split('; ').map((pair) => {
-      const i = pair.indexOf('=');
-      return { name: pair.slice(0, i), value: pair.slice(i + 1), domain: url.hostname, path: '/' };
-    }),
-  );
-  return context.pages()[0] ?? (await context.newPage());
-}
+const signedIn = (user: TestUser, size: { width: number; height: number }) =>
+  signedInPage(server.baseURL, user.cookie, size, browsers, 10_000);
 
 beforeAll(async () => {
-  if (!existsSync(path.join(webDir, 'index.html'))) {
-    throw new Error('The web bundle is missing: run `npm run web:build` (npm test builds it first).');
-  }
+  requireWebBundle();
   mkdirSync(screenshotDir, { recursive: true });
   server = await startTestServer();
   ctx = createTestApp();

@@ -1,15 +1,15 @@
-import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import type { Criterion } from '@/server/contracts/board';
 import type { Matrix } from '@/server/contracts/matrix';
 import { repoRoot } from '@/server/ops/paths';
-import { webDir } from '@/server/ops/web-build';
 import { createTeam, createTestApp, signUp, type TestUser } from '@/tests/helpers/api';
-import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
+import { byTestId, requireWebBundle, signedInPage, type Browser } from '@/tests/helpers/browser';
+import { startTestServer } from '@/tests/helpers/test-server';
 
 /**
  * The comparison matrix in two browsers: an Engineer on a phone scores a candidate in the
@@ -20,7 +20,6 @@ import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
 
 const screenshotDir = path.join(repoRoot, 'artifacts', 'screenshots');
 type Server = Awaited<ReturnType<typeof startTestServer>>;
-type Browser = BrowserContext & { dispose(): Promise<void> };
 let server: Server;
 let ctx: ReturnType<typeof createTestApp>;
 let lead: TestUser;
@@ -29,22 +28,10 @@ let reviewId: string;
 const ids: string[] = [];
 const browsers: Browser[] = [];
 
-const byTestId = (page: Page, id: string) => page.locator(`[data-testid="${id}"]`);
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(screenshotDir, `matrix-${name}.png`) });
 
-async function signedIn(user: TestUser, size: { width: number; height: number }): Promise<Page> {
-  const context = (await launchBrowser(size)) as Browser;
-  browsers.push(context);
-  context.setDefaultTimeout(10_000);
-  const url = new URL(server.baseURL);
-  await context.addCookies(
-    user.cookie.split('; ').map((pair) => {
-      const i = pair.indexOf('=');
-      return { name: pair.slice(0, i), value: pair.slice(i + 1), domain: url.hostname, path: '/' };
-    }),
-  );
-  return context.pages()[0] ?? (await context.newPage());
-}
+const signedIn = (user: TestUser, size: { width: number; height: number }) =>
+  signedInPage(server.baseURL, user.cookie, size, browsers, 10_000);
 
 /** Candidate ids in the order the matrix shows their columns. */
 const columnOrder = (page: Page) =>
@@ -56,9 +43,7 @@ const matrixNow = async (): Promise<Matrix> =>
   (await lead.agent.get(`/api/reviews/${reviewId}/matrix`).expect(200)).body;
 
 beforeAll(async () => {
-  if (!existsSync(path.join(webDir, 'index.html'))) {
-    throw new Error('The web bundle is missing: run `npm run web:build` (npm test builds it first).');
-  }
+  requireWebBundle();
   mkdirSync(screenshotDir, { recursive: true });
   server = await startTestServer();
   ctx = createTestApp();

@@ -1,4 +1,4 @@
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 
@@ -7,8 +7,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { demoSiteYearCsv } from '@/server/ops/demo-site-year';
 import { repoRoot } from '@/server/ops/paths';
-import { webDir } from '@/server/ops/web-build';
 import { signUp, startTeam, testPassword, type TestUser } from '@/tests/helpers/api';
+import { byTestId, requireWebBundle } from '@/tests/helpers/browser';
 import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
 
 /**
@@ -27,8 +27,7 @@ const screenshotDir = path.join(repoRoot, 'artifacts', 'screenshots');
 const files = path.join(tmpdir(), `cyclemoot-site-year-${process.pid}`);
 
 beforeAll(async () => {
-  if (!existsSync(path.join(webDir, 'index.html')))
-    throw new Error('The web bundle is missing: run `npm run web:build` (npm test builds it first).');
+  requireWebBundle();
   mkdirSync(screenshotDir, { recursive: true });
   mkdirSync(files, { recursive: true });
   writeFileSync(path.join(files, 'kestrel.csv'), demoSiteYearCsv());
@@ -55,7 +54,6 @@ afterAll(async () => {
   await server?.stop();
 });
 
-const byTestId = (page: Page, id: string) => page.locator(`[data-testid="${id}"]`);
 const shot = (page: Page, name: string) =>
   page.screenshot({ path: path.join(screenshotDir, `site-year-${name}.png`), fullPage: true });
 
