@@ -2,7 +2,6 @@ import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tansta
 import { useEffect } from 'react';
 
 import { getRealtimeSocket } from '@/realtime/client';
-import { reviewNews } from '@/realtime/events';
 import type {
   Board,
   CandidateWire,
@@ -15,9 +14,11 @@ import type {
   Round,
   UpdateCandidateInput,
 } from '@/server/contracts/board';
+import type { ReviewNews, ReviewNewsEvent } from '@/server/contracts/news';
 
 import { activityKeys } from './activity';
 import { api } from './api';
+import { onReviewNews } from './live';
 import { apiOrigin } from './origin';
 import { STALE } from './stale-times';
 
@@ -230,21 +231,8 @@ export function useReviewLiveUpdates(
       void qc.invalidateQueries({ queryKey: boardKeys.comments(reviewId) });
       void qc.invalidateQueries({ queryKey: boardKeys.rounds(reviewId) });
     };
-    const on = <E extends keyof typeof reviewNews>(
-      event: E,
-      apply: (payload: ReturnType<(typeof reviewNews)[E]['parse']>) => void,
-    ) => {
-      const listener = (raw: unknown) => {
-        const parsed = reviewNews[event].safeParse(raw);
-        if (!parsed.success) {
-          console.warn(`[live] dropped a ${event} that does not match the contract`);
-          return;
-        }
-        apply(parsed.data as ReturnType<(typeof reviewNews)[E]['parse']>);
-      };
-      socket.on(event as never, listener as never);
-      return () => socket.off(event as never, listener as never);
-    };
+    const on = <E extends ReviewNewsEvent>(event: E, apply: (payload: ReviewNews[E]) => void) =>
+      onReviewNews(socket, event, apply);
     const mine = (id: string) => id === reviewId;
     const offs = [
       on('candidate:added', ({ candidate }) => mine(candidate.reviewId) && upsertCandidate(qc, reviewId, candidate)),

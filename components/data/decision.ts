@@ -2,7 +2,6 @@ import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tansta
 import { useEffect } from 'react';
 
 import { getRealtimeSocket } from '@/realtime/client';
-import { reviewNews } from '@/realtime/events';
 import type {
   DecisionRecord,
   DecisionRevision,
@@ -13,6 +12,7 @@ import type { Activity } from '@/server/contracts/team';
 
 import { activityKeys } from './activity';
 import { api } from './api';
+import { onReviewNews } from './live';
 import { apiOrigin } from './origin';
 import { STALE } from './stale-times';
 
@@ -121,25 +121,22 @@ export function useDecisionLiveUpdates(reviewId: string | undefined) {
   useEffect(() => {
     if (!reviewId) return;
     const socket = getRealtimeSocket(apiOrigin());
-    const onUpdated = (raw: unknown) => {
-      const parsed = reviewNews['decision:updated'].safeParse(raw);
-      if (!parsed.success || parsed.data.reviewId !== reviewId) return;
-      if (!applyRevision(qc, reviewId, parsed.data.revision)) refetch(qc, reviewId);
-      void qc.invalidateQueries({ queryKey: decisionKeys.activity(reviewId) });
-    };
-    const onSigned = (raw: unknown) => {
-      const parsed = reviewNews['decision:signed'].safeParse(raw);
-      if (!parsed.success || parsed.data.reviewId !== reviewId) return;
-      applyRevision(qc, reviewId, parsed.data.revision);
-      refetch(qc, reviewId);
-    };
+    const offs = [
+      onReviewNews(socket, 'decision:updated', (news) => {
+        if (news.reviewId !== reviewId) return;
+        if (!applyRevision(qc, reviewId, news.revision)) refetch(qc, reviewId);
+        void qc.invalidateQueries({ queryKey: decisionKeys.activity(reviewId) });
+      }),
+      onReviewNews(socket, 'decision:signed', (news) => {
+        if (news.reviewId !== reviewId) return;
+        applyRevision(qc, reviewId, news.revision);
+        refetch(qc, reviewId);
+      }),
+    ];
     const onConnect = () => refetch(qc, reviewId);
-    socket.on('decision:updated' as never, onUpdated as never);
-    socket.on('decision:signed' as never, onSigned as never);
     socket.on('connect', onConnect);
     return () => {
-      socket.off('decision:updated' as never, onUpdated as never);
-      socket.off('decision:signed' as never, onSigned as never);
+      for (const off of offs) off();
       socket.off('connect', onConnect);
       void qc.invalidateQueries({ queryKey: activityKeys.all });
     };

@@ -3,10 +3,10 @@ import { useEffect, useState } from 'react';
 
 import { getRealtimeSocket } from '@/realtime/client';
 import type { StoredFile } from '@/server/contracts/files';
-import { reviewNews } from '@/server/contracts/news';
 
 import { api } from './api';
 import { apiErrorFromBody, networkError } from './api-error';
+import { onReviewNews } from './live';
 import { apiOrigin } from './origin';
 import { STALE } from './stale-times';
 
@@ -114,21 +114,18 @@ export function useFilesLiveUpdates(reviewId: string | undefined) {
   useEffect(() => {
     if (!reviewId) return;
     const socket = getRealtimeSocket(apiOrigin());
-    const onAdded = (raw: unknown) => {
-      const parsed = reviewNews['file:added'].safeParse(raw);
-      if (parsed.success && parsed.data.file.reviewId === reviewId) addFile(qc, parsed.data.file);
-    };
-    const onRemoved = (raw: unknown) => {
-      const parsed = reviewNews['file:removed'].safeParse(raw);
-      if (parsed.success && parsed.data.reviewId === reviewId) removeFile(qc, reviewId, parsed.data.fileId);
-    };
+    const offs = [
+      onReviewNews(socket, 'file:added', ({ file }) => file.reviewId === reviewId && addFile(qc, file)),
+      onReviewNews(
+        socket,
+        'file:removed',
+        (news) => news.reviewId === reviewId && removeFile(qc, reviewId, news.fileId),
+      ),
+    ];
     const onReconnect = () => void qc.invalidateQueries({ queryKey: filesKeys.review(reviewId) });
-    socket.on('file:added' as never, onAdded as never);
-    socket.on('file:removed' as never, onRemoved as never);
     socket.on('connect', onReconnect);
     return () => {
-      socket.off('file:added' as never, onAdded as never);
-      socket.off('file:removed' as never, onRemoved as never);
+      for (const off of offs) off();
       socket.off('connect', onReconnect);
     };
   }, [reviewId, qc]);

@@ -2,10 +2,10 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
 
 import { getRealtimeSocket } from '@/realtime/client';
-import { reviewNews } from '@/realtime/events';
 import type { Robustness, StartRunInput } from '@/server/contracts/robustness';
 
 import { api } from './api';
+import { onAnyReviewNews, onReviewNews } from './live';
 import { apiOrigin } from './origin';
 import { STALE } from './stale-times';
 
@@ -50,33 +50,23 @@ export function useRobustnessLiveUpdates(reviewId: string | undefined) {
     if (!reviewId) return;
     const socket = getRealtimeSocket(apiOrigin());
     const refetch = () => void qc.invalidateQueries({ queryKey: robustnessKeys.run(reviewId) });
-    const onProgress = (raw: unknown) => {
-      const parsed = reviewNews['robustness:progress'].safeParse(raw);
-      if (!parsed.success || parsed.data.reviewId !== reviewId) return;
-      const { runId, done } = parsed.data;
-      const cached = qc.getQueryData<Robustness>(robustnessKeys.run(reviewId));
-      if (!cached || cached.runId !== runId) return refetch();
-      qc.setQueryData<Robustness>(robustnessKeys.run(reviewId), { ...cached, done: Math.max(cached.done, done) });
-    };
-    const onFinished = (raw: unknown) => {
-      const parsed = reviewNews['robustness:finished'].safeParse(raw);
-      if (parsed.success && parsed.data.reviewId === reviewId) refetch();
-    };
-    const staling = [
-      'candidate:added',
-      'candidate:recomputed',
-      'basis:updated',
-      'score:changed',
-      'site-year:updated',
-    ] as const;
-    socket.on('robustness:progress' as never, onProgress as never);
-    socket.on('robustness:finished' as never, onFinished as never);
-    for (const e of staling) socket.on(e as never, refetch as never);
+    const offs = [
+      onReviewNews(socket, 'robustness:progress', ({ reviewId: of, runId, done }) => {
+        if (of !== reviewId) return;
+        const cached = qc.getQueryData<Robustness>(robustnessKeys.run(reviewId));
+        if (!cached || cached.runId !== runId) return refetch();
+        qc.setQueryData<Robustness>(robustnessKeys.run(reviewId), { ...cached, done: Math.max(cached.done, done) });
+      }),
+      onReviewNews(socket, 'robustness:finished', (news) => news.reviewId === reviewId && refetch()),
+      onAnyReviewNews(
+        socket,
+        ['candidate:added', 'candidate:recomputed', 'basis:updated', 'score:changed', 'site-year:updated'],
+        refetch,
+      ),
+    ];
     socket.on('connect', refetch);
     return () => {
-      socket.off('robustness:progress' as never, onProgress as never);
-      socket.off('robustness:finished' as never, onFinished as never);
-      for (const e of staling) socket.off(e as never, refetch as never);
+      for (const off of offs) off();
       socket.off('connect', refetch);
     };
   }, [reviewId, qc]);

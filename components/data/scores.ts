@@ -2,11 +2,11 @@ import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tansta
 import { useEffect } from 'react';
 
 import { getRealtimeSocket } from '@/realtime/client';
-import { reviewNews } from '@/realtime/events';
 import type { Matrix, ScoreChanged } from '@/server/contracts/matrix';
 import type { PutScoresInput, Score, Scores } from '@/server/contracts/scores';
 
 import { api } from './api';
+import { onAnyReviewNews, onReviewNews } from './live';
 import { apiOrigin } from './origin';
 import { STALE } from './stale-times';
 
@@ -112,37 +112,34 @@ export function useScoresLiveUpdates(reviewId: string | undefined, myUserId?: st
     if (!reviewId) return;
     const socket = getRealtimeSocket(apiOrigin());
     const refetchMatrix = () => void qc.invalidateQueries({ queryKey: scoreKeys.matrix(reviewId) });
-    const onScore = (raw: unknown) => {
-      const parsed = reviewNews['score:changed'].safeParse(raw);
-      if (!parsed.success) {
-        console.warn('[live] dropped a score:changed that does not match the contract');
-        return;
-      }
-      const news = parsed.data;
-      if (news.reviewId !== reviewId) return;
-      patchScores(qc, reviewId, news.scores, myUserId);
-      if (news.refetch) refetchMatrix();
-      else patchMatrix(qc, reviewId, news);
-    };
-    const refetchers = [
-      'basis:updated',
-      'candidate:added',
-      'candidate:recomputed',
-      'round:opened',
-      'round:tallied',
-      'round:closed',
-      'site-year:updated',
-    ] as const;
+    const offs = [
+      onReviewNews(socket, 'score:changed', (news) => {
+        if (news.reviewId !== reviewId) return;
+        patchScores(qc, reviewId, news.scores, myUserId);
+        if (news.refetch) refetchMatrix();
+        else patchMatrix(qc, reviewId, news);
+      }),
+      onAnyReviewNews(
+        socket,
+        [
+          'basis:updated',
+          'candidate:added',
+          'candidate:recomputed',
+          'round:opened',
+          'round:tallied',
+          'round:closed',
+          'site-year:updated',
+        ],
+        refetchMatrix,
+      ),
+    ];
     const onReconnect = () => {
       refetchMatrix();
       void qc.invalidateQueries({ queryKey: scoreKeys.scores(reviewId) });
     };
-    socket.on('score:changed' as never, onScore as never);
-    for (const e of refetchers) socket.on(e as never, refetchMatrix as never);
     socket.on('connect', onReconnect);
     return () => {
-      socket.off('score:changed' as never, onScore as never);
-      for (const e of refetchers) socket.off(e as never, refetchMatrix as never);
+      for (const off of offs) off();
       socket.off('connect', onReconnect);
     };
   }, [reviewId, myUserId, qc]);

@@ -2,12 +2,12 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
 
 import { getRealtimeSocket } from '@/realtime/client';
-import { reviewNews } from '@/realtime/events';
 import type { SiteYear, SiteYearSummary } from '@/server/contracts/site-year';
 
 import { activityKeys } from './activity';
 import { api } from './api';
 import { apiErrorFromBody, networkError } from './api-error';
+import { onAnyReviewNews, onReviewNews } from './live';
 import { apiOrigin } from './origin';
 import { STALE } from './stale-times';
 
@@ -78,13 +78,10 @@ export function useDeleteSiteYear(reviewId: string) {
   });
 }
 
-/** The events after which a review's site year reads differently: a new profile, a changed basis or candidate. */
-const refetchOn = ['site-year:updated', 'basis:updated', 'candidate:added', 'candidate:recomputed'] as const;
-
 /**
  * Listens on the review's room (joined by useReviewLiveUpdates, which the screen also calls)
- * and refetches the site year when it changed; each payload is checked with its contract
- * schema first. On a reconnect it refetches once.
+ * and refetches the site year when it changed (a `site-year:updated` checked with its contract
+ * schema first, for this review only). On a reconnect it refetches once.
  */
 export function useSiteYearLiveUpdates(reviewId: string | undefined) {
   const qc = useQueryClient();
@@ -92,22 +89,14 @@ export function useSiteYearLiveUpdates(reviewId: string | undefined) {
     if (!reviewId) return;
     const socket = getRealtimeSocket(apiOrigin());
     const refetch = () => void qc.invalidateQueries({ queryKey: siteYearKeys.year(reviewId) });
-    const listeners = refetchOn.map((event) => {
-      const listener = (raw: unknown) => {
-        const parsed = reviewNews[event].safeParse(raw);
-        if (!parsed.success) {
-          console.warn(`[live] dropped a ${event} that does not match the contract`);
-          return;
-        }
-        if (event === 'site-year:updated' && (parsed.data as { reviewId: string }).reviewId !== reviewId) return;
-        refetch();
-      };
-      socket.on(event as never, listener as never);
-      return () => socket.off(event as never, listener as never);
-    });
+    // The site year reads differently after a new profile, a changed basis or candidate.
+    const offs = [
+      onReviewNews(socket, 'site-year:updated', (news) => news.reviewId === reviewId && refetch()),
+      onAnyReviewNews(socket, ['basis:updated', 'candidate:added', 'candidate:recomputed'], refetch),
+    ];
     socket.on('connect', refetch);
     return () => {
-      for (const off of listeners) off();
+      for (const off of offs) off();
       socket.off('connect', refetch);
     };
   }, [reviewId, qc]);
