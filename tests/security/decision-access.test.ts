@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { activity, decisionRevision } from '@/db/schema';
 
 import { createTestApp, testOrigin, type TestUser } from '../helpers/api';
+import { refusalsChangeNothing } from '../helpers/unchanged';
 import { discussionTeam, type DiscussionTeam } from '../server/fixtures/discussion';
 
 /**
@@ -43,13 +44,7 @@ async function snapshot() {
   });
 }
 
-async function expectUnchanged(act: () => PromiseLike<{ status: number; body: any }>, status: number) {
-  const before = await snapshot();
-  const res = await act();
-  expect(res.status, JSON.stringify(res.body)).toBe(status);
-  expect(await snapshot()).toBe(before);
-  return res;
-}
+const expectUnchanged = refusalsChangeNothing(snapshot);
 
 type Call = { what: string; write: boolean; run: (u: TestUser) => PromiseLike<{ status: number; body: any }> };
 

@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fileBlob, storedFile } from '@/db/schema';
 
 import { createTestApp, testOrigin, type TestUser } from '../helpers/api';
+import { refusalsChangeNothing } from '../helpers/unchanged';
 import { discussionTeam, type DiscussionTeam } from '../server/fixtures/discussion';
 import { csvBytes, exeBytes, pdfBytes, pngBytes } from '../server/fixtures/files';
 
@@ -44,14 +45,7 @@ async function snapshot() {
   return JSON.stringify({ files: files.map((f) => f.id).sort(), blobs: blobs.map((b) => b.storageKey).sort() });
 }
 
-async function expectUnchanged(act: () => PromiseLike<{ status: number; body: any }>, status: number, field?: string) {
-  const before = await snapshot();
-  const res = await act();
-  expect(res.status, JSON.stringify(res.body)).toBe(status);
-  if (field) expect(res.body.error.field).toBe(field);
-  expect(await snapshot()).toBe(before);
-  return res;
-}
+const expectUnchanged = refusalsChangeNothing(snapshot, 'field');
 
 const upload = (u: TestUser, reviewId: string) => u.agent.post(`/api/reviews/${reviewId}/files`);
 

@@ -7,6 +7,7 @@ import { activity, robustnessRun } from '@/db/schema';
 import { closeRobustness } from '@/server/services/robustness';
 
 import { createTestApp, testOrigin, type TestUser } from '../helpers/api';
+import { refusalsChangeNothing } from '../helpers/unchanged';
 import { scoringTeam, type ScoringTeam } from '../server/fixtures/scoring';
 
 /**
@@ -46,14 +47,7 @@ async function snapshot() {
   });
 }
 
-async function expectUnchanged(act: () => Promise<{ status: number; body: any }>, status: number, code?: string) {
-  const before = await snapshot();
-  const res = await act();
-  expect(res.status, JSON.stringify(res.body)).toBe(status);
-  if (code) expect(res.body.error.code).toBe(code);
-  expect(await snapshot()).toBe(before);
-  return res;
-}
+const expectUnchanged = refusalsChangeNothing(snapshot);
 
 const start = (u: TestUser, reviewId = t.reviewId, body: unknown = { samples: 10, seed: 1 }) =>
   u.agent.post(`/api/reviews/${reviewId}/robustness`).send(body as object);

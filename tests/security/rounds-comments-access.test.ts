@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ballot, comment, round } from '@/db/schema';
 
 import { createTestApp, testOrigin, type TestUser } from '../helpers/api';
+import { refusalsChangeNothing } from '../helpers/unchanged';
 import { discussionTeam, type DiscussionTeam } from '../server/fixtures/discussion';
 
 /**
@@ -57,14 +58,7 @@ async function snapshot() {
   });
 }
 
-async function expectUnchanged(act: () => Promise<{ status: number; body: any }>, status: number, code?: string) {
-  const before = await snapshot();
-  const res = await act();
-  expect(res.status, JSON.stringify(res.body)).toBe(status);
-  if (code) expect(res.body.error.code).toBe(code);
-  expect(await snapshot()).toBe(before);
-  return res;
-}
+const expectUnchanged = refusalsChangeNothing(snapshot);
 
 type Call = { what: string; run: (u: TestUser) => Promise<{ status: number; body: any }> };
 
