@@ -3,11 +3,11 @@ import { setMaxListeners } from 'node:events';
 import { availableParallelism } from 'node:os';
 import path from 'node:path';
 
-import { and, desc, eq, inArray, lt, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, lt, sql } from 'drizzle-orm';
 import { Piscina } from 'piscina';
 
 import type { Database } from '@/db/client';
-import { robustnessRun, siteYear, user } from '@/db/schema';
+import { candidate, robustnessRun, siteYear, user } from '@/db/schema';
 import { DEFAULT_FIRED_HOURS_PER_YEAR } from '@/server/contracts/board';
 import { evaluateRequestSchema } from '@/server/contracts/cycle';
 import {
@@ -25,7 +25,7 @@ import { recordActivity } from '../activity';
 import type { Broadcast } from '../broadcast';
 import { listCandidates } from '../candidates';
 import { coreOf, readBasis, toDesignBasis } from '../design-basis';
-import { marksOf } from '../matrix';
+import { marksOf, type Mark } from '../matrix';
 import { reviewOf } from '../reviews';
 import { getSiteYear } from '../site-year';
 import type { DrawCandidate, DrawJob, DrawPartial } from './draws';
@@ -135,22 +135,50 @@ export async function gatherInputs(db: Database, reviewId: string): Promise<Inpu
     };
   }
 
-  const fingerprint = createHash('sha256')
+  return {
+    job: { candidates: drawCandidates, criteria, marks: grid, scorers, firedHoursPerYear, profile: drawProfile },
+    fingerprint: fingerprintOf(basis.revision, candidates, marks, profile?.updatedAt ?? null),
+    ids,
+  };
+}
+
+/** What a run's result rests on: the basis, each candidate's revision, the marks, the profile. */
+function fingerprintOf(
+  basisRevision: number,
+  candidates: Array<{ id: string; revision: number }>,
+  marks: Mark[],
+  profileUpdatedAt: Date | null,
+): string {
+  return createHash('sha256')
     .update(
       JSON.stringify({
-        basis: basis.revision,
+        basis: basisRevision,
         candidates: candidates.map((c) => [c.id, c.revision]),
         marks: marks.map((m) => [m.candidateId, m.criterionId, m.userId, m.score]).sort(),
-        profile: profile ? profile.updatedAt.toISOString() : null,
+        profile: profileUpdatedAt ? profileUpdatedAt.toISOString() : null,
       }),
     )
     .digest('hex');
+}
 
-  return {
-    job: { candidates: drawCandidates, criteria, marks: grid, scorers, firedHoursPerYear, profile: drawProfile },
-    fingerprint,
-    ids,
-  };
+/**
+ * The fingerprint of the review's inputs as they are now, from only what it hashes (no results,
+ * no profile columns, no site year), for telling whether a stored run is stale.
+ */
+async function currentFingerprint(db: Database, reviewId: string): Promise<string> {
+  const [basisRow, candidates, marks, [profile]] = await Promise.all([
+    readBasis(db, reviewId),
+    // The order of listCandidates, which gatherInputs hashes.
+    db
+      .select({ id: candidate.id, revision: candidate.revision })
+      .from(candidate)
+      .where(eq(candidate.reviewId, reviewId))
+      .orderBy(asc(candidate.position), asc(candidate.createdAt)),
+    marksOf(db, reviewId),
+    db.select({ updatedAt: siteYear.updatedAt }).from(siteYear).where(eq(siteYear.reviewId, reviewId)).limit(1),
+  ]);
+  const basis = toDesignBasis(basisRow, new Date(0).toISOString());
+  return fingerprintOf(basis.revision, candidates, marks, profile?.updatedAt ?? null);
 }
 
 /** Interrupted runs (their process stopped) no longer hold the review's one running slot. */
@@ -384,7 +412,7 @@ export async function getRobustness(db: Database, reviewId: string): Promise<Rob
     .limit(1);
   if (!row) return none(false);
   const { run } = row;
-  const now = await gatherInputs(db, reviewId);
+  const fingerprint = await currentFingerprint(db, reviewId);
   const result = run.result as ReturnType<typeof merge> | null;
   return {
     runId: run.id,
@@ -397,7 +425,7 @@ export async function getRobustness(db: Database, reviewId: string): Promise<Rob
     ranks: result?.ranks ?? null,
     bands: result?.bands ?? null,
     refused: result?.refused ?? null,
-    stale: now.fingerprint !== run.fingerprint,
+    stale: fingerprint !== run.fingerprint,
     startedBy: run.startedById ? { id: run.startedById, name: row.startedByName ?? '' } : null,
     startedAt: run.startedAt.toISOString(),
     finishedAt: run.finishedAt?.toISOString() ?? null,
