@@ -40,11 +40,6 @@ type Panel = 'power' | 'heatRate' | 'exhaust';
 const panels: readonly Panel[] = ['power', 'heatRate', 'exhaust'];
 const fontSize = 10;
 
-/** Ambient in °C (SI) or °F (US): the way site temperatures are read. */
-function ambientShown(k: number, system: UnitSystem) {
-  return system === 'si' ? convert.temperatureCelsius(k) : convert.temperature(k, system);
-}
-
 function valueOf(panel: Panel, p: RatingPoint, system: UnitSystem) {
   if (panel === 'power') return convert.power(p.netPowerKW, system);
   if (panel === 'heatRate') return convert.heatRate(p.heatRateKJPerKWh, system);
@@ -86,12 +81,12 @@ export function RatingCurve({
   const [measured, onLayout] = useMeasuredWidth(width);
   const [hovered, setHovered] = useState<number | null>(null);
   const line = colour ?? theme.text;
-  const ambientUnit = ambientShown(288.15, system).unit;
+  const ambientUnit = convert.siteTemperature(288.15, system).unit;
 
   const drawing = useMemo(() => {
     if (measured <= 0 || curve.length < 2) return null;
     const { height, frame } = frames(measured);
-    const xs = curve.map((p) => ambientShown(p.ambientK, system).amount);
+    const xs = curve.map((p) => convert.siteTemperature(p.ambientK, system).amount);
     const x = horizontalScale([Math.min(...xs), Math.max(...xs)], frame.power);
     const area = plotArea(frame.power);
     const xTicks = ticksOf(x, tickCountFor(area.right - area.left, 70, 2, 9));
@@ -113,8 +108,8 @@ export function RatingCurve({
     });
     const band = profileRange
       ? {
-          left: x(Math.max(xs[0], ambientShown(profileRange.minK, system).amount)),
-          right: x(Math.min(xs[xs.length - 1], ambientShown(profileRange.maxK, system).amount)),
+          left: x(Math.max(xs[0], convert.siteTemperature(profileRange.minK, system).amount)),
+          right: x(Math.min(xs[xs.length - 1], convert.siteTemperature(profileRange.maxK, system).amount)),
         }
       : null;
     return {
@@ -124,7 +119,7 @@ export function RatingCurve({
       xTicks,
       drawn,
       band,
-      designX: x(ambientShown(designK, system).amount),
+      designX: x(convert.siteTemperature(designK, system).amount),
       requiredY: drawn[0].y(required.amount),
     };
   }, [curve, measured, system, requiredKW, designK, profileRange]);
@@ -132,8 +127,8 @@ export function RatingCurve({
   const height = frames(Math.max(measured, 1)).height;
   const point = hovered !== null ? curve[hovered] : undefined;
   const description =
-    `Rating curve: net power, heat rate and exhaust temperature from ${formatNumber(ambientShown(curve[0]?.ambientK ?? 0, system).amount, 3)} ` +
-    `to ${formatNumber(ambientShown(curve[curve.length - 1]?.ambientK ?? 0, system).amount, 3)} ${ambientUnit} ambient.`;
+    `Rating curve: net power, heat rate and exhaust temperature from ${formatNumber(convert.siteTemperature(curve[0]?.ambientK ?? 0, system).amount, 3)} ` +
+    `to ${formatNumber(convert.siteTemperature(curve[curve.length - 1]?.ambientK ?? 0, system).amount, 3)} ${ambientUnit} ambient.`;
 
   const onPoint = (at: Point) => {
     if (!drawing) return;
@@ -243,7 +238,7 @@ export function RatingCurve({
         testID={`${testID}-readout`}
         title={
           point
-            ? `Ambient ${formatNumber(ambientShown(point.ambientK, system).amount, 3)} ${ambientUnit}${Math.abs(point.ambientK - designK) < 1e-6 ? ' · design basis' : ''}`
+            ? `Ambient ${formatNumber(convert.siteTemperature(point.ambientK, system).amount, 3)} ${ambientUnit}${Math.abs(point.ambientK - designK) < 1e-6 ? ' · design basis' : ''}`
             : null
         }
         items={

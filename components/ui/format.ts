@@ -50,6 +50,12 @@ export const convert = {
     system === 'si' ? { amount: kJPerKWh, unit: 'kJ/kWh' } : { amount: kJPerKWh * 0.9478171, unit: 'Btu/kWh' },
   elevation: (m: number, system: UnitSystem): Converted =>
     system === 'si' ? { amount: m, unit: 'm' } : { amount: m * 3.28084, unit: 'ft' },
+  // A site's air reads in °C in SI (°F in US customary), unlike the cycle's kelvin.
+  siteTemperature: (kelvin: number, system: UnitSystem): Converted =>
+    system === 'si' ? convert.temperatureCelsius(kelvin) : convert.temperature(kelvin, system),
+  // Fuel and CO2 in a year: tonnes, or short tons (1 short ton = 907.1847 kg).
+  tonnes: (t: number, system: UnitSystem): Converted =>
+    system === 'si' ? { amount: t, unit: 't' } : { amount: t * 1.102311, unit: 'short tons' },
 };
 
 function shown({ amount, unit }: Converted, significant = 4): Formatted {
@@ -90,6 +96,14 @@ export function heatRate(kJPerKWh: number, system: UnitSystem): Formatted {
 
 export function elevation(m: number, system: UnitSystem): Formatted {
   return shown(convert.elevation(m, system));
+}
+
+export function siteTemperature(kelvin: number, system: UnitSystem): Formatted {
+  return shown(convert.siteTemperature(kelvin, system), 3);
+}
+
+export function tonnes(t: number, system: UnitSystem): Formatted {
+  return shown(convert.tonnes(t, system), 3);
 }
 
 export function percent(fraction: number): Formatted {

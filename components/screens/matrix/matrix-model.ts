@@ -2,7 +2,7 @@ import * as format from '@/components/ui/format';
 import type { Formatted, UnitSystem } from '@/components/ui/format';
 import type { Matrix, MatrixFigureKey, MatrixYearFigureKey } from '@/server/contracts/matrix';
 
-import { ambient, energy, hours, tonnes } from '../site-year/site-year-format';
+import { energy, hours } from '../site-year/site-year-format';
 
 /**
  * The comparison matrix as the screen lays it out: one row model per line (figure,
@@ -67,7 +67,7 @@ export function showYearFigure(key: MatrixYearFigureKey, value: number, system: 
       return energy(value);
     case 'fuelTonnes':
     case 'co2Tonnes':
-      return tonnes(value, system);
+      return format.tonnes(value, system);
     case 'meanHeatRateKJPerKWh':
       return format.heatRate(value, system);
     case 'shortfallHours':
@@ -104,7 +104,7 @@ function yearRows(m: Matrix, system: UnitSystem): RowModel[] {
   if (!year) return [];
   const day = (k: number | null) => {
     if (k === null) return [];
-    const a = ambient(k, system);
+    const a = format.siteTemperature(k, system);
     return [`at ${a.value} ${a.unit}`];
   };
   return year.figures.map((f, i) => {

@@ -1,4 +1,4 @@
-import { convert, formatNumber, heatRate, power, type Formatted, type UnitSystem } from '@/components/ui/format';
+import { formatNumber, heatRate, power, tonnes, type Formatted, type UnitSystem } from '@/components/ui/format';
 import type { Annual } from '@/server/contracts/site-year';
 
 /** The line every site-year figure carries (the words are ours: a first-order estimate). */
@@ -9,24 +9,11 @@ export const firstOrderLine =
 export const powerCapLine =
   'In the year, output is capped at the required power where the machine could give more (part load at that ambient’s full-load heat rate); an hour below the required power counts as short. Fired hours are spread over the profile’s hours in proportion.';
 
-/** A site temperature: °C in SI, °F in US customary. */
-export function ambient(k: number, system: UnitSystem): Formatted {
-  const c = system === 'si' ? convert.temperatureCelsius(k) : convert.temperature(k, system);
-  return { value: formatNumber(c.amount, 3), unit: c.unit };
-}
-
 /** Energy: MWh below 10 GWh, GWh from there. */
 export function energy(mwh: number): Formatted {
   return mwh >= 10_000
     ? { value: formatNumber(mwh / 1000, 3), unit: 'GWh' }
     : { value: formatNumber(mwh, 3), unit: 'MWh' };
-}
-
-/** Mass in tonnes (SI) or short tons (US customary: 1 t = 1.102311 short tons, NIST SP 811). */
-export function tonnes(t: number, system: UnitSystem): Formatted {
-  return system === 'si'
-    ? { value: formatNumber(t, 3), unit: 't' }
-    : { value: formatNumber(t * 1.102311, 3), unit: 'short tons' };
 }
 
 export function hours(h: number): Formatted {

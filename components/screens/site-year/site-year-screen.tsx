@@ -14,7 +14,7 @@ import { BackLink } from '@/components/ui/back-link';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { CautionLine } from '@/components/ui/caution-line';
-import { formatDateTime, type UnitSystem } from '@/components/ui/format';
+import { formatDateTime, siteTemperature, type UnitSystem } from '@/components/ui/format';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Heading, Quantity, Text } from '@/components/ui/text';
@@ -26,7 +26,7 @@ import { roleAllows } from '@/server/contracts/roles';
 import type { CandidateYear, SiteYearSummary } from '@/server/contracts/site-year';
 
 import { FiredHoursForm } from './fired-hours-form';
-import { ambient, annualRows, capacity, firstOrderLine, powerCapLine } from './site-year-format';
+import { annualRows, capacity, firstOrderLine, powerCapLine } from './site-year-format';
 
 /** Opens the browser's file picker for one CSV (web only). */
 function pickCsv(onFile: (file: ProfileFile) => void) {
@@ -189,9 +189,9 @@ function ProfileSummary({ profile, system }: { profile: SiteYearSummary; system:
         standing for <Quantity size="small" value={String(profile.hours)} unit="h" />
       </Text>
       <View style={styles.figures}>
-        <Figure label="Coldest" {...ambient(profile.minK, system)} testID="site-year-min" />
-        <Figure label="Mean" {...ambient(profile.meanK, system)} testID="site-year-mean" />
-        <Figure label="Warmest" {...ambient(profile.maxK, system)} testID="site-year-max" />
+        <Figure label="Coldest" {...siteTemperature(profile.minK, system)} testID="site-year-min" />
+        <Figure label="Mean" {...siteTemperature(profile.meanK, system)} testID="site-year-mean" />
+        <Figure label="Warmest" {...siteTemperature(profile.maxK, system)} testID="site-year-max" />
       </View>
       <Text size="caption" tone="muted">
         {profile.hasPressure
@@ -245,12 +245,12 @@ function CandidateYearCard({
         <>
           <View style={styles.figures}>
             <Figure
-              label={`Hot day (${ambient(year.hotDayK, system).value} ${ambient(year.hotDayK, system).unit})`}
+              label={`Hot day (${siteTemperature(year.hotDayK, system).value} ${siteTemperature(year.hotDayK, system).unit})`}
               {...hot.power}
               testID="site-year-hot-day"
             />
             <Figure
-              label={`Cold day (${ambient(year.coldDayK, system).value} ${ambient(year.coldDayK, system).unit})`}
+              label={`Cold day (${siteTemperature(year.coldDayK, system).value} ${siteTemperature(year.coldDayK, system).unit})`}
               {...cold.power}
               testID="site-year-cold-day"
             />
