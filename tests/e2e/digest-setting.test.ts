@@ -1,14 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { signUp, startTeam, testPassword, type TestUser } from '@/tests/helpers/api';
-import { byTestId, requireWebBundle } from '@/tests/helpers/browser';
-import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
+import { signUp, startTeam, type TestUser } from '@/tests/helpers/api';
+import { byTestId, requireWebBundle, signInThroughForm, type Browser } from '@/tests/helpers/browser';
+import { startTestServer } from '@/tests/helpers/test-server';
 
 /** The daily digest is chosen on the settings screen, kept with the account, and survives a reload. */
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let person: TestUser;
-let browser: Awaited<ReturnType<typeof launchBrowser>> | undefined;
+const browsers: Browser[] = [];
 
 beforeAll(async () => {
   requireWebBundle();
@@ -17,7 +17,7 @@ beforeAll(async () => {
   await startTeam(person, 'Digest team');
 });
 afterAll(async () => {
-  await browser?.dispose();
+  for (const b of browsers) await b.dispose();
   await server?.stop();
 });
 
@@ -28,12 +28,7 @@ const stored = async () =>
 
 describe('the daily digest setting', () => {
   it('is off at first, turned on from the settings screen, and stays on after a reload', async () => {
-    browser = await launchBrowser({ width: 390, height: 844 });
-    const page = browser.pages()[0] ?? (await browser.newPage());
-    await page.goto(`${server.baseURL}/sign-in`);
-    await byTestId(page, 'sign-in-email').fill(person.email);
-    await byTestId(page, 'sign-in-password').fill(testPassword);
-    await byTestId(page, 'sign-in-button').click();
+    const page = await signInThroughForm(server.baseURL, person, { width: 390, height: 844 }, browsers);
     await byTestId(page, 'nav-settings').click();
     await byTestId(page, 'settings-screen').waitFor();
     await expect.poll(() => byTestId(page, 'daily-digest-off').getAttribute('aria-checked')).toBe('true');

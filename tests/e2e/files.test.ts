@@ -4,9 +4,9 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { repoRoot } from '@/server/ops/paths';
-import { signUp, startTeam, testPassword, type TestUser } from '@/tests/helpers/api';
-import { byTestId, requireWebBundle } from '@/tests/helpers/browser';
-import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
+import { signUp, startTeam, type TestUser } from '@/tests/helpers/api';
+import { byTestId, requireWebBundle, signInThroughForm, type Browser } from '@/tests/helpers/browser';
+import { startTestServer } from '@/tests/helpers/test-server';
 
 import { pdfBytes, pngBytes } from '../server/fixtures/files';
 
@@ -20,7 +20,7 @@ type Server = Awaited<ReturnType<typeof startTestServer>>;
 let server: Server;
 let owner: TestUser;
 let reviewId: string;
-const browsers: Array<Awaited<ReturnType<typeof launchBrowser>>> = [];
+const browsers: Browser[] = [];
 const artifacts = path.join(repoRoot, 'artifacts');
 
 beforeAll(async () => {
@@ -40,13 +40,7 @@ afterAll(async () => {
 });
 
 async function signedIn(viewport: { width: number; height: number }) {
-  const browser = await launchBrowser(viewport);
-  browsers.push(browser);
-  const page = browser.pages()[0] ?? (await browser.newPage());
-  await page.goto(`${server.baseURL}/sign-in`);
-  await byTestId(page, 'sign-in-email').fill(owner.email);
-  await byTestId(page, 'sign-in-password').fill(testPassword);
-  await byTestId(page, 'sign-in-button').click();
+  const page = await signInThroughForm(server.baseURL, owner, viewport, browsers);
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
   await page.goto(`${server.baseURL}/reviews/${reviewId}/files`);
   await byTestId(page, 'files-screen').waitFor();

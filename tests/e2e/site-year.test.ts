@@ -7,9 +7,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { demoSiteYearCsv } from '@/server/ops/demo-site-year';
 import { repoRoot } from '@/server/ops/paths';
-import { signUp, startTeam, testPassword, type TestUser } from '@/tests/helpers/api';
-import { byTestId, requireWebBundle } from '@/tests/helpers/browser';
-import { launchBrowser, startTestServer } from '@/tests/helpers/test-server';
+import { signUp, startTeam, type TestUser } from '@/tests/helpers/api';
+import { byTestId, requireWebBundle, signInThroughForm, type Browser } from '@/tests/helpers/browser';
+import { startTestServer } from '@/tests/helpers/test-server';
 
 /**
  * The Site year screen in a real browser: the rating curves without a profile, a bad CSV
@@ -22,7 +22,7 @@ let server: Server;
 let lead: TestUser;
 let reviewId: string;
 const candidateIds: string[] = [];
-const browsers: Array<Awaited<ReturnType<typeof launchBrowser>>> = [];
+const browsers: Browser[] = [];
 const screenshotDir = path.join(repoRoot, 'artifacts', 'screenshots');
 const files = path.join(tmpdir(), `cyclemoot-site-year-${process.pid}`);
 
@@ -58,13 +58,7 @@ const shot = (page: Page, name: string) =>
   page.screenshot({ path: path.join(screenshotDir, `site-year-${name}.png`), fullPage: true });
 
 async function openSiteYear(viewport: { width: number; height: number }) {
-  const browser = await launchBrowser(viewport);
-  browsers.push(browser);
-  const page = browser.pages()[0] ?? (await browser.newPage());
-  await page.goto(`${server.baseURL}/sign-in`);
-  await byTestId(page, 'sign-in-email').fill(lead.email);
-  await byTestId(page, 'sign-in-password').fill(testPassword);
-  await byTestId(page, 'sign-in-button').click();
+  const page = await signInThroughForm(server.baseURL, lead, viewport, browsers);
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
   await page.goto(`${server.baseURL}/reviews/${reviewId}/site-year`);
   await byTestId(page, 'site-year-screen').waitFor();

@@ -5,6 +5,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 
 import { webDir } from '@/server/ops/web-build';
 
+import { testPassword, type TestUser } from './api';
 import { launchBrowser } from './test-server';
 
 export type Browser = BrowserContext & { dispose(): Promise<void> };
@@ -41,3 +42,24 @@ export async function signedInPage(
 }
 
 export const byTestId = (page: Page, id: string) => page.locator(`[data-testid="${id}"]`);
+
+/**
+ * A fresh Chromium of `size` whose first page has just sent `user`'s address and the test
+ * password through the sign-in form at `baseURL` (the browser goes into `opened`); the
+ * caller waits for whatever the sign-in leads to.
+ */
+export async function signInThroughForm(
+  baseURL: string,
+  user: Pick<TestUser, 'email'>,
+  size: { width: number; height: number },
+  opened: Browser[],
+): Promise<Page> {
+  const context = (await launchBrowser(size)) as Browser;
+  opened.push(context);
+  const page = context.pages()[0] ?? (await context.newPage());
+  await page.goto(`${baseURL}/sign-in`);
+  await byTestId(page, 'sign-in-email').fill(user.email);
+  await byTestId(page, 'sign-in-password').fill(testPassword);
+  await byTestId(page, 'sign-in-button').click();
+  return page;
+}
