@@ -83,7 +83,8 @@ export async function updateDesignBasis(
   const recomputed = await db.transaction(async (tx) => {
     const before = await lockBasis(tx, reviewId, 'update');
     const criteria = withIds(sentCriteria, before.criteria as Criterion[]);
-    const engineChanged = !isDeepStrictEqual(coreOf(before), core);
+    // Fired hours are no engine input: a change of them alone recomputes nothing.
+    const engineChanged = engineGroupsChanged(coreOf(before), core).length > 0;
     await tx
       .update(designBasis)
       .set({
@@ -116,10 +117,15 @@ export async function updateDesignBasis(
   return { designBasis: basis, candidates };
 }
 
+/** The groups of the basis the engine takes (see engineInputOf), in the contract's names. */
+const engineGroups = ['ambient', 'fuel', 'fluid', 'netPowerKW', 'generatorEfficiency', 'limits'] as const;
+
+function engineGroupsChanged(before: BasisCore, after: BasisCore): string[] {
+  return engineGroups.filter((g) => !isDeepStrictEqual(before[g], after[g]));
+}
+
 /** Which groups of the basis a change touched, in the contract's names. */
 function changedGroups(before: BasisCore, after: BasisCore, criteriaBefore: unknown, criteriaAfter: unknown): string[] {
-  const groups = (['ambient', 'fuel', 'fluid', 'netPowerKW', 'generatorEfficiency', 'limits'] as const).filter(
-    (g) => !isDeepStrictEqual(before[g], after[g]),
-  );
+  const groups = engineGroupsChanged(before, after);
   return isDeepStrictEqual(criteriaBefore, criteriaAfter) ? groups : [...groups, 'criteria'];
 }
