@@ -40,6 +40,11 @@ const ranges: Array<{ key: keyof Uncertainty; label: string; unit: string }> = [
   { key: 'weightFactor', label: 'Criterion weights ×(1 ±)', unit: '(0.2 = ×0.8–1.2)' },
 ];
 
+/** The uncertainty as the form holds it: each number as the text of its field, the two choices as they are. */
+type UncertaintyText = Record<keyof Uncertainty, string | boolean>;
+const asText = (u: Uncertainty): UncertaintyText =>
+  Object.fromEntries(Object.entries(u).map(([k, v]) => [k, typeof v === 'boolean' ? v : String(v)])) as UncertaintyText;
+
 const pct = (p: number) => `${(p * 100).toFixed(p > 0 && p < 0.01 ? 1 : 0)} %`;
 
 /**
@@ -237,15 +242,7 @@ function StartForm({ reviewId, last }: { reviewId: string; last: Robustness }) {
   const [samples, setSamples] = useState(String(last.samples ?? defaultSamples));
   const [seed, setSeed] = useState(String(last.seed ?? 1));
   const [open, setOpen] = useState(false);
-  const [u, setU] = useState<Record<keyof Uncertainty, string | boolean>>(
-    () =>
-      Object.fromEntries(
-        Object.entries(last.uncertainty ?? defaultUncertainty).map(([k, v]) => [
-          k,
-          typeof v === 'boolean' ? v : String(v),
-        ]),
-      ) as Record<keyof Uncertainty, string | boolean>,
-  );
+  const [u, setU] = useState(() => asText(last.uncertainty ?? defaultUncertainty));
   const body = {
     samples: Number(samples),
     seed: Number(seed),
@@ -324,13 +321,7 @@ function StartForm({ reviewId, last }: { reviewId: string; last: Robustness }) {
             label="Back to the defaults"
             variant="quiet"
             small
-            onPress={() =>
-              setU(
-                Object.fromEntries(
-                  Object.entries(defaultUncertainty).map(([k, v]) => [k, typeof v === 'boolean' ? v : String(v)]),
-                ) as never,
-              )
-            }
+            onPress={() => setU(asText(defaultUncertainty))}
             testID="robustness-u-defaults"
           />
         </View>
