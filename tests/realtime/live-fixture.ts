@@ -2,14 +2,13 @@ import { io as connect, type Socket } from 'socket.io-client';
 import { afterAll, beforeAll, expect } from 'vitest';
 
 import type { Database } from '@/db/client';
-import { candidate } from '@/db/schema';
 import type { ClientToServerEvents, ServerToClientEvents } from '@/realtime/events';
 import type { Auth } from '@/server/auth/auth';
 import type { ReviewNews } from '@/server/contracts/news';
-import type { TeamRole } from '@/server/contracts/roles';
 
-import { createTeam, createTestApp, signUp, type TestUser } from '../helpers/api';
+import { createTestApp, type TestUser } from '../helpers/api';
 import { startTestServer } from '../helpers/test-server';
+import { addCandidates, teamWithReview, type DiscussionTeam } from '../server/fixtures/discussion';
 
 /** Shared by the live board's socket tests: a Team on a real server, clients, and waiting. */
 
@@ -74,32 +73,15 @@ export function next<E extends keyof ReviewNews>(
 export const seen = (payload: ReviewNews['presence:changed']) =>
   payload.people.map((p) => `${p.name}:${p.candidateId ?? 'board'}`);
 
-export type BoardTeam = Record<TeamRole, TestUser> & { teamId: string; reviewId: string; candidates: string[] };
+export type BoardTeam = DiscussionTeam;
 
 /**
  * A Team with one person in each role (signed up on the real server at `baseURL`), a Review
  * its Lead made there, and `candidateCount` candidates. Candidates are written straight to
  * their table: the room only needs them to exist, not to be computed.
  */
-export async function boardTeam(
-  ctx: { db: Database; auth: Auth },
-  baseURL: string,
-  label: string,
-  candidateCount = 3,
-): Promise<BoardTeam> {
-  const people = {} as Record<TeamRole, TestUser>;
-  for (const role of ['owner', 'lead', 'engineer', 'reviewer', 'observer'] as const) {
-    people[role] = await signUp(baseURL, `${label} ${role[0].toUpperCase()}${role.slice(1)}`);
-  }
-  const teamId = await createTeam(
-    ctx,
-    people.owner,
-    (['lead', 'engineer', 'reviewer', 'observer'] as const).map((role) => ({ user: people[role], role })),
-  );
-  const reviewId = await addReview(people.lead, teamId, `${label} review`);
-  const candidates = await addCandidates(ctx.db, reviewId, candidateCount);
-  return { ...people, teamId, reviewId, candidates };
-}
+export const boardTeam = (ctx: { db: Database; auth: Auth }, baseURL: string, label: string, candidateCount = 3) =>
+  teamWithReview(baseURL, ctx, label, candidateCount);
 
 export async function addReview(by: TestUser, teamId: string, name: string): Promise<string> {
   const created = await by.agent.post(`/api/teams/${teamId}/reviews`).send({ name });
@@ -108,22 +90,7 @@ export async function addReview(by: TestUser, teamId: string, name: string): Pro
   return created.body.id as string;
 }
 
-export async function addCandidates(db: Database, reviewId: string, n: number): Promise<string[]> {
-  const rows = await db
-    .insert(candidate)
-    .values(
-      Array.from({ length: n }, (_, i) => ({
-        reviewId,
-        name: `Candidate ${i + 1}`,
-        colourIndex: i,
-        position: i,
-        parameters: {},
-        input: {},
-      })),
-    )
-    .returning({ id: candidate.id });
-  return rows.map((r) => r.id);
-}
+export { addCandidates };
 
 export type LiveBoards = {
   server: Awaited<ReturnType<typeof startTestServer>>;
