@@ -17,7 +17,7 @@ import { recordActivity } from './activity';
 import type { Broadcast } from './broadcast';
 import { listCandidates } from './candidates';
 import { coreOf, lockBasis, readBasis } from './design-basis';
-import { getReview } from './reviews';
+import { reviewOf } from './reviews';
 import type { ParsedProfile } from './site-year-csv';
 
 /**
@@ -84,7 +84,7 @@ export async function putSiteYear(
   parsed: ParsedProfile,
   fileName: string,
 ): Promise<SiteYearSummary> {
-  const review = await getReview(db, reviewId);
+  const review = await reviewOf(db, reviewId);
   const { minK, maxK, meanK } = summarise(parsed.columns);
   await db.transaction(async (tx) => {
     await lockBasis(tx, reviewId, 'share');
@@ -126,7 +126,7 @@ export async function putSiteYear(
 
 /** Removes the review's profile (404 when it has none); the room hears `site-year:updated` with null. */
 export async function deleteSiteYear({ db, broadcast, actorId }: SiteYearContext, reviewId: string): Promise<void> {
-  const review = await getReview(db, reviewId);
+  const review = await reviewOf(db, reviewId);
   await db.transaction(async (tx) => {
     const gone = await tx
       .delete(siteYear)

@@ -8,7 +8,7 @@ import { exportCaution, type Matrix, type MatrixCell } from '@/server/contracts/
 import type { Listener } from '@/server/contracts/news';
 
 import { getDecision, getRevision, takeSnapshot } from '../decision';
-import { getReview } from '../reviews';
+import { reviewOf } from '../reviews';
 
 /** The caution line of the product (components/ui/caution-line.tsx), on every page. */
 const pdfCautionText = exportCaution;
@@ -521,7 +521,7 @@ export async function decisionPdfOf(
     revisionNumber === undefined
       ? (await getDecision(db, reviewId)).current
       : await getRevision(db, reviewId, revisionNumber);
-  const review = await getReview(db, reviewId);
+  const review = await reviewOf(db, reviewId);
   const live = revision.status !== 'signed' || !revision.snapshot;
   const snapshot = live ? await takeSnapshot(db, reviewId, viewer) : revision.snapshot!;
   const bytes = await drawDecisionPdf({ reviewName: review.name, revision, snapshot, live });
