@@ -241,7 +241,20 @@ export function Swatch({ colour, dashed = false }: { colour: string; dashed?: bo
   return <View style={[styles.swatch, { backgroundColor: colour }]} />;
 }
 
+/** One entry of a diagram's key below the plot: the line's swatch and what it is. */
+export function KeyEntry({ label, colour, dashed }: { label: string; colour: string; dashed?: boolean }) {
+  return (
+    <View style={styles.keyEntry}>
+      <Swatch colour={colour} dashed={dashed} />
+      <Text size="caption" tone="soft">
+        {label}
+      </Text>
+    </View>
+  );
+}
+
 const styles = StyleSheet.create({
+  keyEntry: { flexDirection: 'row', alignItems: 'center', gap: space.half },
   focusTarget: { position: 'absolute', width: focusTargetSize, height: focusTargetSize, borderRadius: 12 },
   readout: { minHeight: 64, paddingTop: space[1], gap: 2 },
   readoutTitle: { flexDirection: 'row', alignItems: 'center', gap: space.half },

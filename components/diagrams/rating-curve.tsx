@@ -3,13 +3,12 @@ import { StyleSheet, View } from 'react-native';
 import Svg, { Circle, G, Line, Path, Rect } from 'react-native-svg';
 
 import { convert, formatNumber, type UnitSystem } from '@/components/ui/format';
-import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { fontFamily, space } from '@/components/ui/tokens';
 import { useUnitSystem } from '@/components/ui/unit-system';
 import type { RatingPoint } from '@/server/contracts/site-year';
 
-import { Axes, HaloText, HitLayer, Readout, Swatch, useMeasuredWidth } from './diagram-parts';
+import { Axes, HaloText, HitLayer, KeyEntry, Readout, useMeasuredWidth } from './diagram-parts';
 import {
   horizontalScale,
   paddedExtent,
@@ -265,19 +264,7 @@ function shown(c: { amount: number; unit: string }) {
   return { value: formatNumber(c.amount, 4), unit: c.unit };
 }
 
-function KeyEntry({ label, colour, dashed }: { label: string; colour: string; dashed?: boolean }) {
-  return (
-    <View style={styles.keyEntry}>
-      <Swatch colour={colour} dashed={dashed} />
-      <Text size="caption" tone="soft">
-        {label}
-      </Text>
-    </View>
-  );
-}
-
 const styles = StyleSheet.create({
   wrap: { width: '100%', gap: space[1] },
   key: { flexDirection: 'row', flexWrap: 'wrap', gap: space[2] },
-  keyEntry: { flexDirection: 'row', alignItems: 'center', gap: space.half },
 });

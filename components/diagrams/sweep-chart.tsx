@@ -3,12 +3,11 @@ import { StyleSheet, View } from 'react-native';
 import Svg, { Circle, G, Line, Path, Rect } from 'react-native-svg';
 
 import type { UnitSystem } from '@/components/ui/format';
-import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { fontFamily, space } from '@/components/ui/tokens';
 import { useUnitSystem } from '@/components/ui/unit-system';
 
-import { Axes, HaloText, HitLayer, Readout, Swatch, useMeasuredWidth } from './diagram-parts';
+import { Axes, HaloText, HitLayer, KeyEntry, Readout, useMeasuredWidth } from './diagram-parts';
 import { horizontalScale, plotArea, polylineD, tickCountFor, ticksOf, verticalScale, type Point } from './scales';
 import {
   describeSweep,
@@ -281,19 +280,7 @@ function labelLeft(x: number, area: { left: number; right: number }): boolean {
   return x > (area.left + area.right) / 2;
 }
 
-function KeyEntry({ label, colour, dashed }: { label: string; colour: string; dashed?: boolean }) {
-  return (
-    <View style={styles.keyEntry}>
-      <Swatch colour={colour} dashed={dashed} />
-      <Text size="caption" tone="soft">
-        {label}
-      </Text>
-    </View>
-  );
-}
-
 const styles = StyleSheet.create({
   wrap: { width: '100%' },
   key: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space[2], rowGap: space.half, paddingTop: space.half },
-  keyEntry: { flexDirection: 'row', alignItems: 'center', gap: space.half },
 });
