@@ -6,6 +6,7 @@ import type { Database } from '@/db/client';
 import { maxFileBytes, uploadFileFields } from '@/server/contracts/files';
 import { ApiError, parse } from '@/server/http/errors';
 import { reviewParams } from '@/server/http/params';
+import { uploadedFileName } from '@/server/http/upload-name';
 import { requireReview } from '@/server/services/access';
 import type { Broadcast } from '@/server/services/broadcast';
 import { deleteFile, downloadFile, listFiles, uploadFile } from '@/server/services/files';
@@ -47,20 +48,6 @@ const receiveUpload: RequestHandler = (req, res, next) => {
   });
 };
 
-/**
- * Browsers send a file name's UTF-8 bytes as they are; busboy (under multer) reads them as
- * Latin-1. Read such a name again as UTF-8 when its bytes are valid UTF-8.
- */
-function uploadedName(raw: string): string {
-  const codes = [...raw].map((c) => c.codePointAt(0) ?? 0);
-  if (!codes.some((c) => c >= 0x80) || codes.some((c) => c > 0xff)) return raw;
-  try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(Buffer.from(raw, 'latin1'));
-  } catch {
-    return raw;
-  }
-}
-
 type Deps = { db: Database; broadcast: Broadcast; storage: FileStorage };
 
 /** Files of a Review (datasheets, site data, sketches): upload, list, download, delete. */
@@ -93,7 +80,7 @@ export function filesRouter({ db, broadcast, storage }: Deps): Router {
       const file = await uploadFile(
         { db, broadcast, storage, actorId: res.locals.user.id },
         reviewId,
-        { originalName: uploadedName(req.file.originalname), bytes: req.file.buffer },
+        { originalName: uploadedFileName(req.file.originalname), bytes: req.file.buffer },
         fields,
       );
       res.status(201).json(file);

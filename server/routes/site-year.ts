@@ -5,6 +5,7 @@ import type { Database } from '@/db/client';
 import { maxSiteYearBytes } from '@/server/contracts/site-year';
 import { ApiError, parse } from '@/server/http/errors';
 import { reviewParams } from '@/server/http/params';
+import { uploadedFileName } from '@/server/http/upload-name';
 import { requireReview } from '@/server/services/access';
 import type { Broadcast } from '@/server/services/broadcast';
 import { deleteSiteYear, getSiteYear, putSiteYear } from '@/server/services/site-year';
@@ -39,21 +40,10 @@ const receiveProfile: RequestHandler = (req, res, next) => {
   });
 };
 
-/**
- * Browsers send a file name's UTF-8 bytes as they are; busboy reads them as Latin-1. Read
- * such a name again as UTF-8 when its bytes are valid UTF-8; keep at most 200 characters.
- */
+/** The uploaded name read as UTF-8, without control characters; at most 200 characters. */
 function uploadedName(raw: string): string {
-  let name = raw;
-  if (/[\u0080-\u00ff]/.test(raw) && Array.from(raw).every((ch) => ch.charCodeAt(0) <= 0xff)) {
-    try {
-      name = new TextDecoder('utf-8', { fatal: true }).decode(Buffer.from(raw, 'latin1'));
-    } catch {
-      name = raw;
-    }
-  }
   return (
-    Array.from(name, (ch) => (ch.charCodeAt(0) < 32 || ch.charCodeAt(0) === 127 ? '' : ch))
+    Array.from(uploadedFileName(raw), (ch) => (ch.charCodeAt(0) < 32 || ch.charCodeAt(0) === 127 ? '' : ch))
       .join('')
       .trim() || 'site-year.csv'
   ).slice(0, 200);
