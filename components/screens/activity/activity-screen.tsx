@@ -11,46 +11,8 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { space } from '@/components/ui/tokens';
-import type { Activity } from '@/server/contracts/team';
 
-const str = (v: unknown) => (typeof v === 'string' ? v : '');
-
-/** A sentence for each kind of entry; unknown kinds still read as plain words. */
-function describeActivity(a: Activity): string {
-  const d = a.detail;
-  switch (a.kind) {
-    case 'review:created':
-      return `started the Review “${str(d.name)}”`;
-    case 'review:renamed':
-      return `renamed the Review “${str(d.from)}” to “${str(d.to)}”`;
-    case 'review:summary-changed':
-      return `changed the summary of “${str(d.name)}”`;
-    case 'review:archived':
-      return `archived the Review “${str(d.name)}”`;
-    case 'review:restored':
-      return `restored the Review “${str(d.name)}”`;
-    case 'basis:updated':
-      return `changed the design basis of “${str(d.reviewName)}”`;
-    case 'candidate:added':
-      return `added the candidate “${str(d.name)}” to “${str(d.reviewName)}”`;
-    case 'candidate:renamed':
-      return `renamed the candidate “${str(d.from)}” to “${str(d.to)}”`;
-    case 'candidate:status-changed':
-      return `marked the candidate “${str(d.name)}” ${str(d.statusLabel).toLowerCase()}`;
-    case 'candidate:recomputed':
-      return `changed the parameters of “${str(d.name)}”`;
-    case 'round:opened':
-      return `opened preference round ${str(String(d.number ?? ''))} in “${str(d.reviewName)}”`;
-    case 'round:closed':
-      return `closed preference round ${str(String(d.number ?? ''))} in “${str(d.reviewName)}”`;
-    case 'comment:posted':
-      return `commented in “${str(d.reviewName)}”`;
-    default: {
-      const name = str(d.name);
-      return (a.kind as string).replace(/[:._-]+/g, ' ') + (name ? ` “${name}”` : '');
-    }
-  }
-}
+import { describeActivity } from './describe';
 
 /** The current Team's history, newest first. */
 export function ActivityScreen() {
@@ -81,7 +43,7 @@ export function ActivityScreen() {
             <View style={[styles.mark, { backgroundColor: a.kind.endsWith('archived') ? t.warning : t.cold }]} />
             <View style={styles.text}>
               <Text>
-                <Text weight="semibold">{a.actor?.name ?? 'Someone'}</Text> {describeActivity(a)}
+                <Text weight="semibold">{a.actor?.name ?? 'Someone'}</Text> {describeActivity(a, 'team')}
               </Text>
               <View style={styles.metaRow}>
                 <Text size="small" tone="muted" accessibilityLabel={formatDateTime(a.createdAt)}>
@@ -90,7 +52,7 @@ export function ActivityScreen() {
                 {a.reviewId && a.kind !== 'review:archived' ? (
                   <PressableLink
                     href={`/reviews/${a.reviewId}`}
-                    accessibilityLabel={`Open the review ${str(a.detail.name) || ''}`.trim()}
+                    accessibilityLabel={`Open the review ${typeof a.detail.name === 'string' ? a.detail.name : ''}`.trim()}
                     style={styles.link}
                   >
                     <Text size="small" tone="cold" weight="medium">

@@ -11,54 +11,9 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Text } from '@/components/ui/text';
 import { useTheme } from '@/components/ui/theme';
 import { space } from '@/components/ui/tokens';
-import type { Activity } from '@/server/contracts/team';
 
+import { describeActivity } from '../activity/describe';
 import { BoardBar } from '../board/board-bar';
-
-const str = (v: unknown) => (typeof v === 'string' ? v : typeof v === 'number' ? String(v) : '');
-
-/** A sentence for each kind of entry within one Review; unknown kinds still read as plain words. */
-export function describeReviewActivity(a: Activity): string {
-  const d = a.detail;
-  switch (a.kind) {
-    case 'review:created':
-      return `started this Review as “${str(d.name)}”`;
-    case 'review:renamed':
-      return `renamed the Review “${str(d.from)}” to “${str(d.to)}”`;
-    case 'review:summary-changed':
-      return 'changed the summary';
-    case 'review:archived':
-      return 'archived the Review';
-    case 'review:restored':
-      return 'restored the Review';
-    case 'basis:updated':
-      return 'changed the design basis';
-    case 'candidate:added':
-      return `added the candidate “${str(d.name)}”`;
-    case 'candidate:renamed':
-      return `renamed the candidate “${str(d.from)}” to “${str(d.to)}”`;
-    case 'candidate:status-changed':
-      return `marked the candidate “${str(d.name)}” ${str(d.statusLabel).toLowerCase()}`;
-    case 'candidate:recomputed':
-      return `changed the parameters of “${str(d.name)}”`;
-    case 'round:opened':
-      return `opened preference round ${str(d.number)}`;
-    case 'round:closed':
-      return `closed preference round ${str(d.number)}`;
-    case 'comment:posted':
-      return 'commented';
-    case 'decision:updated':
-      return `edited the draft of decision record revision ${str(d.number)}`;
-    case 'decision:signed':
-      return `signed decision record revision ${str(d.number)}${d.chosenName ? `, choosing “${str(d.chosenName)}”` : ''}`;
-    case 'decision:reopened':
-      return `reopened the decision record as revision ${str(d.number)}`;
-    default: {
-      const name = str(d.name);
-      return (a.kind as string).replace(/[:._-]+/g, ' ') + (name ? ` “${name}”` : '');
-    }
-  }
-}
 
 /** One Review's Activity as a timeline, newest first, kept current while the board's room is joined. */
 export function ReviewActivityScreen({ reviewId }: { reviewId: string }) {
@@ -96,7 +51,7 @@ export function ReviewActivityScreen({ reviewId }: { reviewId: string }) {
             </View>
             <View style={styles.text}>
               <Text>
-                <Text weight="semibold">{a.actor?.name ?? 'Someone'}</Text> {describeReviewActivity(a)}
+                <Text weight="semibold">{a.actor?.name ?? 'Someone'}</Text> {describeActivity(a, 'review')}
               </Text>
               <Text size="small" tone="muted" accessibilityLabel={formatDateTime(a.createdAt)}>
                 {formatAgo(a.createdAt)} · {formatDateTime(a.createdAt)}
