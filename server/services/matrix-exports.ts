@@ -148,14 +148,19 @@ function noCandidates(): ApiError {
   );
 }
 
-/** A file name from the review's name: letters, digits and dashes. */
-export function exportFileName(reviewName: string, extension: 'csv' | 'xlsx'): string {
+/** The review's name for a file name: letters, digits and dashes ('review' when none is left). */
+export function reviewFileSlug(reviewName: string): string {
   const slug = reviewName
     .normalize('NFKD')
     .replace(/[^A-Za-z0-9]+/g, '-')
     .replace(/^-+|-+$/g, '')
     .slice(0, 60);
-  return `${slug || 'review'}-comparison-matrix.${extension}`;
+  return slug || 'review';
+}
+
+/** A file name from the review's name: letters, digits and dashes. */
+export function exportFileName(reviewName: string, extension: 'csv' | 'xlsx'): string {
+  return `${reviewFileSlug(reviewName)}-comparison-matrix.${extension}`;
 }
 
 /** The CSV: the caution line and the rules first, then the header and the rows. */

@@ -8,6 +8,7 @@ import { exportCaution, type Matrix, type MatrixCell } from '@/server/contracts/
 import type { Listener } from '@/server/contracts/news';
 
 import { getDecision, getRevision, takeSnapshot } from '../decision';
+import { reviewFileSlug } from '../matrix-exports';
 import { reviewOf } from '../reviews';
 
 /** The caution line of the product (components/ui/caution-line.tsx), on every page. */
@@ -500,13 +501,6 @@ export function drawDecisionPdf({ reviewName, revision, snapshot }: PdfData): Pr
   return done;
 }
 
-const safeName = (s: string) =>
-  s
-    .normalize('NFKD')
-    .replace(/[^A-Za-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .slice(0, 60) || 'review';
-
 /**
  * The PDF of a review's decision record: the current revision, or `revisionNumber`. A signed
  * one is drawn from its snapshot; a draft from the board as it is now, marked as a draft.
@@ -527,6 +521,6 @@ export async function decisionPdfOf(
   const bytes = await drawDecisionPdf({ reviewName: review.name, revision, snapshot, live });
   return {
     bytes,
-    fileName: `decision-record-${safeName(review.name)}-r${revision.number}${live ? '-draft' : ''}.pdf`,
+    fileName: `decision-record-${reviewFileSlug(review.name)}-r${revision.number}${live ? '-draft' : ''}.pdf`,
   };
 }
