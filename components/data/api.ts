@@ -4,20 +4,20 @@ import { apiOrigin } from './origin';
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
 /**
- * The JSON API helper: same-origin cookies, JSON in and out, and one error type thrown
- * for every failure (see api-error.ts).
+ * The JSON API helper: same-origin cookies, JSON in and out (or a multipart FormData in, its
+ * boundary set by fetch), and one error type thrown for every failure (see api-error.ts).
  */
 async function request<T>(method: Method, path: string, body?: unknown, signal?: AbortSignal): Promise<T> {
+  const json = body !== undefined && !(typeof FormData !== 'undefined' && body instanceof FormData);
   let response: Response;
   try {
     response = await fetch(apiOrigin() + path, {
       method,
       credentials: 'include',
-      headers:
-        body === undefined
-          ? { accept: 'application/json' }
-          : { accept: 'application/json', 'content-type': 'application/json' },
-      body: body === undefined ? undefined : JSON.stringify(body),
+      headers: json
+        ? { accept: 'application/json', 'content-type': 'application/json' }
+        : { accept: 'application/json' },
+      body: json ? JSON.stringify(body) : (body as FormData | undefined),
       signal,
     });
   } catch (error) {
@@ -41,6 +41,7 @@ export const api = {
   get: <T>(path: string, signal?: AbortSignal) => request<T>('GET', path, undefined, signal),
   post: <T>(path: string, body: unknown) => request<T>('POST', path, body),
   put: <T>(path: string, body: unknown) => request<T>('PUT', path, body),
+  putForm: <T>(path: string, form: FormData) => request<T>('PUT', path, form),
   patch: <T>(path: string, body: unknown) => request<T>('PATCH', path, body),
   delete: <T>(path: string) => request<T>('DELETE', path),
 };

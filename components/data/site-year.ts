@@ -6,7 +6,6 @@ import type { SiteYear, SiteYearSummary } from '@/server/contracts/site-year';
 
 import { activityKeys } from './activity';
 import { api } from './api';
-import { apiErrorFromBody, networkError } from './api-error';
 import { onAnyReviewNews, onReviewNews } from './live';
 import { apiOrigin } from './origin';
 import { STALE } from './stale-times';
@@ -34,26 +33,7 @@ export type ProfileFile = Blob & { name?: string };
 export async function uploadSiteYear(reviewId: string, file: ProfileFile): Promise<SiteYearSummary> {
   const form = new FormData();
   form.append('file', file, file.name ?? 'site-year.csv');
-  let response: Response;
-  try {
-    response = await fetch(`${apiOrigin()}/api/reviews/${r(reviewId)}/site-year`, {
-      method: 'PUT',
-      credentials: 'include',
-      headers: { accept: 'application/json' },
-      body: form,
-    });
-  } catch {
-    throw networkError();
-  }
-  const text = await response.text();
-  let parsed: unknown;
-  try {
-    parsed = text ? JSON.parse(text) : null;
-  } catch {
-    parsed = null;
-  }
-  if (!response.ok) throw apiErrorFromBody(response.status, parsed);
-  return parsed as SiteYearSummary;
+  return api.putForm<SiteYearSummary>(`/api/reviews/${r(reviewId)}/site-year`, form);
 }
 
 export function useUploadSiteYear(reviewId: string) {
