@@ -23,8 +23,9 @@ export async function recordActivity(tx: Tx | Database, entry: ActivityEntry) {
   });
 }
 
-export async function listTeamActivity(db: Database, teamId: string, limit = 200): Promise<Activity[]> {
-  const rows = await db
+/** Activity lines with their actor's name; the caller adds the where, order and limit. */
+export function selectActivity(db: Database) {
+  return db
     .select({
       id: activity.id,
       kind: activity.kind,
@@ -35,16 +36,26 @@ export async function listTeamActivity(db: Database, teamId: string, limit = 200
       actorName: user.name,
     })
     .from(activity)
-    .leftJoin(user, eq(user.id, activity.actorId))
-    .where(eq(activity.teamId, teamId))
-    .orderBy(desc(activity.createdAt))
-    .limit(limit);
-  return rows.map((r) => ({
+    .leftJoin(user, eq(user.id, activity.actorId));
+}
+
+type Selected = Awaited<ReturnType<typeof selectActivity>>[number];
+
+export function toActivity(r: Selected): Activity {
+  return {
     id: r.id,
     kind: r.kind as ActivityKind,
     reviewId: r.reviewId,
     detail: r.detail,
     createdAt: r.createdAt.toISOString(),
     actor: r.actorId ? { id: r.actorId, name: r.actorName ?? '' } : null,
-  }));
+  };
+}
+
+export async function listTeamActivity(db: Database, teamId: string, limit = 200): Promise<Activity[]> {
+  const rows = await selectActivity(db)
+    .where(eq(activity.teamId, teamId))
+    .orderBy(desc(activity.createdAt))
+    .limit(limit);
+  return rows.map(toActivity);
 }

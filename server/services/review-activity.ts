@@ -1,9 +1,11 @@
 import { and, desc, eq, lt, or } from 'drizzle-orm';
 
 import type { Database } from '@/db/client';
-import { activity, user } from '@/db/schema';
-import type { Activity, ActivityKind } from '@/server/contracts/team';
+import { activity } from '@/db/schema';
+import type { Activity } from '@/server/contracts/team';
 import { ApiError } from '@/server/http/errors';
+
+import { selectActivity, toActivity } from './activity';
 
 /**
  * One Review's Activity, newest first: every change recorded with its reviewId. `beforeId`
@@ -24,18 +26,7 @@ export async function listReviewActivity(
     if (!row) throw ApiError.invalidField('before', 'This is not an Activity entry of this Review.');
     before = row;
   }
-  const rows = await db
-    .select({
-      id: activity.id,
-      kind: activity.kind,
-      reviewId: activity.reviewId,
-      detail: activity.detail,
-      createdAt: activity.createdAt,
-      actorId: user.id,
-      actorName: user.name,
-    })
-    .from(activity)
-    .leftJoin(user, eq(user.id, activity.actorId))
+  const rows = await selectActivity(db)
     .where(
       and(
         eq(activity.reviewId, reviewId),
@@ -49,12 +40,5 @@ export async function listReviewActivity(
     )
     .orderBy(desc(activity.createdAt), desc(activity.id))
     .limit(limit);
-  return rows.map((r) => ({
-    id: r.id,
-    kind: r.kind as ActivityKind,
-    reviewId: r.reviewId,
-    detail: r.detail,
-    createdAt: r.createdAt.toISOString(),
-    actor: r.actorId ? { id: r.actorId, name: r.actorName ?? '' } : null,
-  }));
+  return rows.map(toActivity);
 }
