@@ -10,6 +10,7 @@ import {
   addReview,
   boardTeam,
   heard,
+  joinBoard,
   next,
   openClient,
   seen,
@@ -23,12 +24,7 @@ let ctx: ReturnType<typeof createTestApp>;
 const sockets: Client[] = [];
 const open = (cookie?: string) => openClient(server.baseURL, cookie, sockets);
 
-/** Opens a socket for `cookie` and joins the review; resolves after the ack. */
-async function onBoard(cookie: string, reviewId: string) {
-  const socket = await open(cookie);
-  expect(await socket.emitWithAck('review:join', { reviewId })).toEqual({ ok: true });
-  return socket;
-}
+const onBoard = (cookie: string, reviewId: string) => joinBoard(server.baseURL, cookie, reviewId, sockets);
 
 beforeAll(async () => {
   server = await startTestServer();

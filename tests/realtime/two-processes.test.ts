@@ -4,7 +4,17 @@ import type { ReviewNews } from '@/server/contracts/news';
 
 import { createTestApp } from '../helpers/api';
 import { startTestServer } from '../helpers/test-server';
-import { boardTeam, heard, next, openClient, seen, until, type BoardTeam, type Client } from './live-fixture';
+import {
+  boardTeam,
+  heard,
+  joinBoard,
+  next,
+  openClient,
+  seen,
+  until,
+  type BoardTeam,
+  type Client,
+} from './live-fixture';
 
 /**
  * Two servers on one database, as `npm start` and `PORT=8091 npm start` are: rooms, broadcasts
@@ -30,11 +40,7 @@ afterAll(async () => {
   await ctx.close();
 });
 
-async function onBoard(server: typeof one, cookie: string) {
-  const socket = await openClient(server.baseURL, cookie, sockets);
-  expect(await socket.emitWithAck('review:join', { reviewId: t.reviewId })).toEqual({ ok: true });
-  return socket;
-}
+const onBoard = (server: typeof one, cookie: string) => joinBoard(server.baseURL, cookie, t.reviewId, sockets);
 
 describe('two server processes on one database', () => {
   let lead: Client;
