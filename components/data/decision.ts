@@ -8,7 +8,6 @@ import type {
   DecisionRevisionNews,
   UpdateDecisionInput,
 } from '@/server/contracts/decision';
-import type { Activity } from '@/server/contracts/team';
 
 import { activityKeys } from './activity';
 import { api } from './api';
@@ -20,7 +19,6 @@ const r = (reviewId: string) => encodeURIComponent(reviewId);
 
 export const decisionKeys = {
   record: (reviewId: string) => ['decision', reviewId] as const,
-  activity: (reviewId: string) => ['activity', 'review', reviewId] as const,
 };
 
 /** GET /api/reviews/:reviewId/decision — the current revision and every revision, newest first. */
@@ -53,7 +51,7 @@ function applyRevision(qc: QueryClient, reviewId: string, news: DecisionRevision
 
 const refetch = (qc: QueryClient, reviewId: string) => {
   void qc.invalidateQueries({ queryKey: decisionKeys.record(reviewId) });
-  void qc.invalidateQueries({ queryKey: decisionKeys.activity(reviewId) });
+  void qc.invalidateQueries({ queryKey: activityKeys.review(reviewId) });
 };
 
 /** PUT the draft (the whole form: every field of the draft). */
@@ -64,7 +62,7 @@ export function useUpdateDecisionMutation(reviewId: string) {
       api.put<DecisionRevision>(`/api/reviews/${r(reviewId)}/decision`, input),
     onSuccess: (revision) => {
       if (!applyRevision(qc, reviewId, revision)) refetch(qc, reviewId);
-      void qc.invalidateQueries({ queryKey: decisionKeys.activity(reviewId) });
+      void qc.invalidateQueries({ queryKey: activityKeys.review(reviewId) });
     },
   });
 }
@@ -100,16 +98,6 @@ export function decisionPdfURL(reviewId: string, revision?: number): string {
   return `${apiOrigin()}/api/reviews/${r(reviewId)}/decision.pdf${revision ? `?revision=${revision}` : ''}`;
 }
 
-/** GET /api/reviews/:reviewId/activity — newest first. */
-export function useReviewActivityQuery(reviewId: string | undefined) {
-  return useQuery({
-    queryKey: decisionKeys.activity(reviewId ?? ''),
-    queryFn: ({ signal }) => api.get<Activity[]>(`/api/reviews/${r(reviewId!)}/activity?limit=200`, signal),
-    staleTime: STALE.seconds.ten,
-    enabled: !!reviewId,
-  });
-}
-
 /**
  * Patches the decision record from `decision:updated` and `decision:signed` (each payload
  * checked with its contract schema first). It listens only: the room is joined by the board's
@@ -125,7 +113,7 @@ export function useDecisionLiveUpdates(reviewId: string | undefined) {
       onReviewNews(socket, 'decision:updated', (news) => {
         if (news.reviewId !== reviewId) return;
         if (!applyRevision(qc, reviewId, news.revision)) refetch(qc, reviewId);
-        void qc.invalidateQueries({ queryKey: decisionKeys.activity(reviewId) });
+        void qc.invalidateQueries({ queryKey: activityKeys.review(reviewId) });
       }),
       onReviewNews(socket, 'decision:signed', (news) => {
         if (news.reviewId !== reviewId) return;

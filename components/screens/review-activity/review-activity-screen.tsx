@@ -1,7 +1,8 @@
 import { StyleSheet, View } from 'react-native';
 
+import { useReviewActivityQuery } from '@/components/data/activity';
 import { useBoardQuery, useReviewLiveUpdates } from '@/components/data/board';
-import { useDecisionLiveUpdates, useReviewActivityQuery } from '@/components/data/decision';
+import { useDecisionLiveUpdates } from '@/components/data/decision';
 import { Card } from '@/components/ui/card';
 import { CautionLine } from '@/components/ui/caution-line';
 import { formatAgo, formatDateTime } from '@/components/ui/format';
