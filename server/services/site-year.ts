@@ -7,6 +7,7 @@ import type { CandidateYear, SiteYear, SiteYearSummary } from '@/server/contract
 import {
   EngineInputError,
   profileDensities,
+  profileSummary,
   siteYear as siteYearOf,
   type AmbientProfile,
   type CycleInput,
@@ -56,21 +57,9 @@ function summaryOf(row: ProfileRow): SiteYearSummary {
 
 /** Summary figures of parsed columns (the mean weighted by the hours each row stands for). */
 function summarise(columns: SiteYearColumns) {
-  const t = columns.temperatureK;
-  const w = columns.weightHours;
-  let minK = Infinity;
-  let maxK = -Infinity;
-  let sum = 0;
-  let hours = 0;
-  for (let i = 0; i < t.length; i++) {
-    const h = w ? w[i] : 1;
-    minK = Math.min(minK, t[i]);
-    maxK = Math.max(maxK, t[i]);
-    sum += t[i] * h;
-    hours += h;
-  }
+  const { minK, maxK, meanK } = profileSummary(columns);
   // Rounding can put the mean of equal values a hair outside them.
-  return { minK, maxK, meanK: Math.min(maxK, Math.max(minK, sum / hours)) };
+  return { minK, maxK, meanK: Math.min(maxK, Math.max(minK, meanK)) };
 }
 
 /**
