@@ -219,7 +219,7 @@ function Result({ run, candidates }: { run: Robustness; candidates: Named[] }) {
                   </Text>
                   {' · '}fuel a year{' '}
                   <Text size="small" mono>
-                    {band(b.annualFuelTonnes, (v) => ({ value: format.formatNumber(v, 3), unit: 't' }))}
+                    {band(b.annualFuelTonnes, (v) => format.tonnes(v, system))}
                   </Text>
                 </Text>
               </View>
