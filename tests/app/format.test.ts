@@ -38,6 +38,8 @@ const nist = {
   wPerHp: 7.456999e2,
   /** 1 ft = 3.048 E−01 m (exact; NIST SP 811, B.8, "foot") — from memory. */
   mPerFt: 3.048e-1,
+  /** 1 short ton = 2000 lb = 9.071 847 E+02 kg (NIST SP 811, B.8, "ton, short (2000 lb)"). */
+  kgPerShortTon: 9.071847e2,
 } as const;
 
 /** Temperature relations (NIST SP 811, B.9, "temperature") — from memory. */
@@ -75,6 +77,13 @@ describe('each US customary conversion against NIST SP 811 Appendix B', () => {
     },
     { quantity: 'drive power', si: nist.wPerHp / 1e3, run: () => convert.power(nist.wPerHp / 1e3, us), unit: 'hp' },
     { quantity: 'elevation', si: nist.mPerFt, run: () => convert.elevation(nist.mPerFt, us), unit: 'ft' },
+    // Fuel and CO2 a year arrive in tonnes (1000 kg).
+    {
+      quantity: 'fuel a year',
+      si: nist.kgPerShortTon / 1e3,
+      run: () => convert.tonnes(nist.kgPerShortTon / 1e3, us),
+      unit: 'short tons',
+    },
   ];
 
   it.each(cases)('$quantity: 1 $unit', ({ quantity, run, unit }) => {
@@ -123,6 +132,13 @@ describe('temperature', () => {
     const shown = convert.temperature(kelvinFrom.fahrenheit(fahrenheit), us);
     expect(shown.unit).toBe('°F');
     expectClose(shown.amount, fahrenheit, { abs: 1e-9 }, label);
+  });
+
+  it('a site’s air reads in °C in SI and °F in US customary', () => {
+    expect(convert.siteTemperature(273.15, 'si')).toEqual({ amount: 0, unit: '°C' });
+    const hot = convert.siteTemperature(kelvinFrom.fahrenheit(95), us);
+    expect(hot.unit).toBe('°F');
+    expectClose(hot.amount, 95, { abs: 1e-9 }, '95 °F');
   });
 
   it('°F and °R differ by 459.67 and share the degree size 1/1.8 K', () => {
