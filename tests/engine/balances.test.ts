@@ -233,6 +233,23 @@ describe.each(configurations)('%s', (_name, input) => {
       for (const v of [...path.temperatureK, ...path.entropyKJPerKgK]) expect(Number.isFinite(v)).toBe(true);
     }
   });
+
+  it('keeps inner path points to drawing resolution (0.01 K, 0.01 J/(kg·K)) in the order of the process', () => {
+    for (const path of result.paths) {
+      const inner = (v: number[]) => v.slice(1, -1);
+      for (const t of inner(path.temperatureK)) expect(Math.abs(t * 100 - Math.round(t * 100))).toBeLessThan(1e-6);
+      for (const s of inner(path.entropyKJPerKgK)) expect(Math.abs(s * 1e5 - Math.round(s * 1e5))).toBeLessThan(1e-6);
+      // Temperatures run one way from the first state to the second, as before rounding.
+      const t = path.temperatureK;
+      const rising = t.at(-1)! > t[0];
+      for (let j = 1; j < t.length; j++) expect(rising ? t[j] >= t[j - 1] : t[j] <= t[j - 1]).toBe(true);
+      // Each inner point within half the resolution of the straight-line spacing in T.
+      t.forEach((tj, j) => {
+        const even = t[0] + ((t.at(-1)! - t[0]) * j) / (t.length - 1);
+        expect(Math.abs(tj - even)).toBeLessThanOrEqual(0.005 + 1e-9);
+      });
+    }
+  });
 });
 
 describe('combustion details', () => {

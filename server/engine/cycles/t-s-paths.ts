@@ -91,9 +91,30 @@ function withoutLoss(a: FlowState, b: FlowState): boolean {
   return Math.abs(b.pressureKPa - a.pressureKPa) <= 1e-12 * a.pressureKPa;
 }
 
+/** Drawing resolution of a path's inner points: 0.01 K and 0.01 J/(kg·K). */
+const drawnTemperatureK = 100;
+const drawnEntropyKJPerKgK = 100_000;
+
+/**
+ * A path's inner points rounded to what a drawing can show; its two ends stay the exact
+ * states. Even the largest diagram spans ~1,000 px over ~1,500 K and ~2 kJ/(kg·K), so a
+ * pixel is above 1 K and 0.002 kJ/(kg·K): the rounding moves no point by a pixel, and a
+ * number then travels in 6–8 characters instead of 17 (the board's live news is mostly
+ * paths). Rounding keeps the order of the points.
+ */
+function forDrawing(path: ProcessPath): ProcessPath {
+  const { temperatureK: t, entropyKJPerKgK: s } = path;
+  for (let j = 1; j < t.length - 1; j++) {
+    t[j] = Math.round(t[j] * drawnTemperatureK) / drawnTemperatureK;
+    s[j] = Math.round(s[j] * drawnEntropyKJPerKgK) / drawnEntropyKJPerKgK;
+  }
+  return path;
+}
+
 /**
  * The T-s paths of a cycle: one per process between successive states (both ends included,
  * `pointsPerProcess` clamped to 2–200), plus the exhaust returning to the ambient state.
+ * Inner points are kept to drawing resolution (forDrawing).
  */
 export function cyclePaths(records: readonly StateRecord[], pointsPerProcess: number): ProcessPath[] {
   const points = Math.max(2, Math.min(200, Math.round(pointsPerProcess)));
@@ -103,24 +124,28 @@ export function cyclePaths(records: readonly StateRecord[], pointsPerProcess: nu
     const b = records[i];
     const kind = b.process!;
     paths.push(
-      kind === 'compression' || kind === 'expansion'
-        ? polytropicPath(b.gas, a.state, b.state, points, kind, i, i + 1)
-        : isobarPath(b.gas, a.state, b.state, points, kind, i, i + 1, b.burnt),
+      forDrawing(
+        kind === 'compression' || kind === 'expansion'
+          ? polytropicPath(b.gas, a.state, b.state, points, kind, i, i + 1)
+          : isobarPath(b.gas, a.state, b.state, points, kind, i, i + 1, b.burnt),
+      ),
     );
   }
   // The exhaust returns to the ambient state outside the plant: heat rejection at ambient pressure.
   const exhaust = records[records.length - 1];
   const first = records[0];
   paths.push(
-    isobarPath(
-      first.gas,
-      exhaust.state,
-      first.state,
-      points,
-      'heat-rejection',
-      records.length,
-      1,
-      exhaust.gas !== first.gas,
+    forDrawing(
+      isobarPath(
+        first.gas,
+        exhaust.state,
+        first.state,
+        points,
+        'heat-rejection',
+        records.length,
+        1,
+        exhaust.gas !== first.gas,
+      ),
     ),
   );
   return paths;
