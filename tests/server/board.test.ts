@@ -413,6 +413,62 @@ describe('PATCH a candidate', () => {
       expect(row.parameters).toEqual(winner.body.parameters);
     }
   });
+
+  it('keeps every one of several PATCHes sent at once without ifRevision: none is lost, each logged', async () => {
+    const reviewId = await newReview();
+    const c = await add(reviewId, { name: 'Crowded', preset: 'reheat' });
+    const url = `/api/reviews/${reviewId}/candidates/${c.id}`;
+    const changes = [
+      { parameters: { compressor: { pressureRatio: 17 } } },
+      { parameters: { turbine: { inletTemperatureK: 1480 } } },
+      { parameters: { turbine: { reheatTemperatureK: 1420 } } },
+      { name: 'Crowded, renamed' },
+      { status: 'shortlisted' },
+    ];
+    const answers = await Promise.all(changes.map((body, i) => (i % 2 ? lead : engineer).agent.patch(url).send(body)));
+    for (const a of answers) expect(a.status, JSON.stringify(a.body)).toBe(200);
+    const [row] = await ctx.db.select().from(candidate).where(eq(candidate.id, c.id));
+    expect(row.revision).toBe(1 + changes.length);
+    expect(row).toMatchObject({ name: 'Crowded, renamed', status: 'shortlisted' });
+    const p = row.parameters as any;
+    expect([p.compressor.pressureRatio, p.turbine.inletTemperatureK, p.turbine.reheatTemperatureK]).toEqual([
+      17, 1480, 1420,
+    ]);
+    expect(row.results).toEqual(await evaluated(row.input));
+    const logged = await ctx.db.select().from(activity).where(eq(activity.reviewId, reviewId));
+    expect(logged.filter((l) => l.kind === 'candidate:recomputed')).toHaveLength(3);
+    expect(logged.filter((l) => l.kind === 'candidate:renamed')).toHaveLength(1);
+    expect(logged.filter((l) => l.kind === 'candidate:status-changed')).toHaveLength(1);
+    // Every revision the room heard is a distinct one, and the last is the stored row.
+    const heard = sentFor(reviewId)
+      .filter((s) => s.event === 'candidate:recomputed')
+      .map((s) => (s.payload as { candidate: CandidateWire }).candidate.revision);
+    expect(new Set(heard).size).toBe(changes.length);
+    expect(Math.max(...heard)).toBe(row.revision);
+  });
+
+  it('leaves a candidate edited during a basis change computed with the basis it ends on', async () => {
+    for (let round = 0; round < 3; round++) {
+      const reviewId = await newReview();
+      const c = await add(reviewId, { name: `Racing the basis ${round}`, preset: 'regenerative' });
+      const url = `/api/reviews/${reviewId}/candidates/${c.id}`;
+      const body = basisBody((await board(reviewId)).designBasis);
+      body.ambient = { ...body.ambient, temperatureK: 300.15 + round };
+      const [put, ...edits] = await Promise.all([
+        lead.agent.put(`/api/reviews/${reviewId}/design-basis`).send(body),
+        engineer.agent.patch(url).send({ parameters: { compressor: { pressureRatio: 7 + round } } }),
+        lead.agent.patch(url).send({ parameters: { turbine: { inletTemperatureK: 1400 + round } } }),
+      ]);
+      expect(put.status, JSON.stringify(put.body)).toBe(200);
+      for (const e of edits) expect(e.status, JSON.stringify(e.body)).toBe(200);
+      const [row] = await ctx.db.select().from(candidate).where(eq(candidate.id, c.id));
+      const input = row.input as any;
+      expect(input.ambient.temperatureK).toBe(300.15 + round);
+      expect(input.compressor.pressureRatio).toBe(7 + round);
+      expect(input.turbine.inletTemperatureK).toBe(1400 + round);
+      expect(row.results).toEqual(await evaluated(row.input));
+    }
+  });
 });
 
 describe('PUT design basis', () => {
